@@ -1,0 +1,37 @@
+// Two projects: node for shared/ and server/, jest-expo for components/.
+const esmOnly = ['openid-client', 'oidc-provider', 'jose', 'oauth4webapi', 'quick-lru', 'nanoid'];
+const alias = { '^@/(.*)$': '<rootDir>/$1' };
+
+module.exports = {
+  projects: [
+    {
+      displayName: 'node',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/tests/shared', '<rootDir>/tests/server'],
+      testMatch: ['**/*.test.ts'],
+      moduleNameMapper: alias,
+      transform: {
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', esModuleInterop: true, isolatedModules: true }, diagnostics: false }],
+      },
+      transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
+    },
+    {
+      displayName: 'components',
+      preset: 'jest-expo/web',
+      roots: ['<rootDir>/tests/components'],
+      testMatch: ['**/*.test.tsx', '**/*.test.ts'],
+      moduleNameMapper: alias,
+    },
+    {
+      displayName: 'e2e',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/tests/e2e'],
+      testMatch: ['**/*.test.ts'],
+      moduleNameMapper: alias,
+      testTimeout: 120000,
+      transform: {
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', esModuleInterop: true, isolatedModules: true }, diagnostics: false }],
+      },
+    },
+  ],
+};

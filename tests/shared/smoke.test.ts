@@ -1,0 +1,2 @@
+import { HyperFormula } from 'hyperformula';
+it('runs', () => { expect(HyperFormula.version).toBeTruthy(); });
