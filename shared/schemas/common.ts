@@ -1,0 +1,23 @@
+import { z } from 'zod';
+
+/** Identifiers are UUIDs everywhere. */
+export const idSchema = z.uuid({ message: 'must be a UUID' });
+
+/** A trimmed, non-empty line of text with a maximum length. */
+export function textLine(max: number) {
+  return z.string().trim().min(1, { message: 'must not be empty' }).max(max, { message: `must be at most ${max} characters` });
+}
+
+/** The one error shape every API failure uses. */
+export const apiErrorSchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    details: z.unknown().optional(),
+  }),
+});
+export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
+
+/** Field-by-field validation details: a path such as "body.name" and what is wrong there. */
+export const fieldErrorSchema = z.object({ path: z.string(), message: z.string() });
+export type FieldError = z.infer<typeof fieldErrorSchema>;
