@@ -1,0 +1,5 @@
+export * from '@/shared/budget/types';
+export * from '@/shared/budget/presets';
+export * from '@/shared/budget/validate-preset';
+export * from '@/shared/budget/allowance';
+export * from '@/shared/budget/rollup';
