@@ -1,0 +1,222 @@
+/**
+ * Parser for sheet formulas in spreadsheet syntax ("=film_thickness * film_density * sail_area").
+ * It follows HyperFormula's grammar and precedence (comparison < + - < * / < ^ < % < unary sign,
+ * ^ left-associative), so that the tree it builds evaluates as HyperFormula would evaluate the text.
+ * The tree drives dependency tracking, dimension checks, the cell formulas given to HyperFormula
+ * and the compiled evaluator.
+ */
+
+export type BinaryOperator = '+' | '-' | '*' | '/' | '^' | '=' | '<>' | '<' | '>' | '<=' | '>=';
+
+export type FormulaNode =
+  | { readonly kind: 'number'; readonly value: number }
+  | { readonly kind: 'ref'; readonly key: string }
+  | { readonly kind: 'call'; readonly name: string; readonly args: readonly FormulaNode[] }
+  | { readonly kind: 'unary'; readonly op: '+' | '-'; readonly operand: FormulaNode }
+  | { readonly kind: 'percent'; readonly operand: FormulaNode }
+  | { readonly kind: 'binary'; readonly op: BinaryOperator; readonly left: FormulaNode; readonly right: FormulaNode };
+
+/** A formula that does not parse: the message says what was found and at which character. */
+export class FormulaSyntaxError extends Error {}
+
+type Token =
+  | { kind: 'number'; value: number; at: number }
+  | { kind: 'name'; text: string; at: number }
+  | { kind: 'op'; text: string; at: number }
+  | { kind: 'end'; at: number };
+
+const OPERATORS = ['<=', '>=', '<>', '+', '-', '*', '/', '^', '%', '=', '<', '>', '(', ')', ','];
+
+function tokenize(body: string, offset: number): Token[] {
+  const tokens: Token[] = [];
+  let index = 0;
+  while (index < body.length) {
+    const rest = body.slice(index);
+    const space = /^\s+/.exec(rest);
+    if (space !== null) {
+      index += space[0].length;
+      continue;
+    }
+    const at = index + offset;
+    const number = /^(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?/.exec(rest);
+    if (number !== null) {
+      tokens.push({ kind: 'number', value: Number(number[0]), at });
+      index += number[0].length;
+      continue;
+    }
+    const name = /^[A-Za-z_][A-Za-z0-9_.]*/.exec(rest);
+    if (name !== null) {
+      tokens.push({ kind: 'name', text: name[0], at });
+      index += name[0].length;
+      continue;
+    }
+    const operator = OPERATORS.find((candidate) => rest.startsWith(candidate));
+    if (operator === undefined) {
+      const what = rest.startsWith('"') ? 'text values are not supported' : `unexpected "${rest.charAt(0)}"`;
+      throw new FormulaSyntaxError(`${what} at character ${at + 1}`);
+    }
+    tokens.push({ kind: 'op', text: operator, at });
+    index += operator.length;
+  }
+  tokens.push({ kind: 'end', at: body.length + offset });
+  return tokens;
+}
+
+const BINARY_PRECEDENCE: Readonly<Record<string, number>> = {
+  '=': 1,
+  '<>': 1,
+  '<': 1,
+  '>': 1,
+  '<=': 1,
+  '>=': 1,
+  '+': 2,
+  '-': 2,
+  '*': 3,
+  '/': 3,
+  '^': 4,
+};
+
+function describeToken(token: Token): string {
+  switch (token.kind) {
+    case 'end':
+      return 'end of formula';
+    case 'number':
+      return `number ${token.value}`;
+    case 'name':
+      return `"${token.text}"`;
+    case 'op':
+      return `"${token.text}"`;
+  }
+}
+
+class Parser {
+  private position = 0;
+
+  constructor(private readonly tokens: readonly Token[]) {}
+
+  private peek(): Token {
+    return this.tokens[this.position] ?? { kind: 'end', at: 0 };
+  }
+
+  private next(): Token {
+    const token = this.peek();
+    this.position += 1;
+    return token;
+  }
+
+  private fail(token: Token, expected: string): never {
+    throw new FormulaSyntaxError(`expected ${expected} but found ${describeToken(token)} at character ${token.at + 1}`);
+  }
+
+  private isOp(text: string): boolean {
+    const token = this.peek();
+    return token.kind === 'op' && token.text === text;
+  }
+
+  parseFormula(): FormulaNode {
+    const node = this.parseBinary(1);
+    const token = this.peek();
+    if (token.kind !== 'end') this.fail(token, 'an operator or end of formula');
+    return node;
+  }
+
+  private parseBinary(minPrecedence: number): FormulaNode {
+    let left = this.parsePostfix();
+    for (;;) {
+      const token = this.peek();
+      const precedence = token.kind === 'op' ? BINARY_PRECEDENCE[token.text] : undefined;
+      if (token.kind !== 'op' || precedence === undefined || precedence < minPrecedence) return left;
+      this.next();
+      const right = this.parseBinary(precedence + 1);
+      left = { kind: 'binary', op: token.text as BinaryOperator, left, right };
+    }
+  }
+
+  private parsePostfix(): FormulaNode {
+    let node = this.parseUnary();
+    while (this.isOp('%')) {
+      this.next();
+      node = { kind: 'percent', operand: node };
+    }
+    return node;
+  }
+
+  private parseUnary(): FormulaNode {
+    if (this.isOp('-') || this.isOp('+')) {
+      const op = this.next();
+      return { kind: 'unary', op: op.kind === 'op' && op.text === '-' ? '-' : '+', operand: this.parseUnary() };
+    }
+    return this.parsePrimary();
+  }
+
+  private parsePrimary(): FormulaNode {
+    const token = this.next();
+    if (token.kind === 'number') return { kind: 'number', value: token.value };
+    if (token.kind === 'name') {
+      if (!this.isOp('(')) return { kind: 'ref', key: token.text };
+      this.next();
+      return { kind: 'call', name: token.text.toUpperCase(), args: this.parseArguments() };
+    }
+    if (token.kind === 'op' && token.text === '(') {
+      const inner = this.parseBinary(1);
+      const close = this.next();
+      if (close.kind !== 'op' || close.text !== ')') this.fail(close, '")"');
+      return inner;
+    }
+    return this.fail(token, 'a number, a parameter key, a function or "("');
+  }
+
+  private parseArguments(): FormulaNode[] {
+    const args: FormulaNode[] = [];
+    if (this.isOp(')')) {
+      this.next();
+      return args;
+    }
+    for (;;) {
+      args.push(this.parseBinary(1));
+      const token = this.next();
+      if (token.kind === 'op' && token.text === ')') return args;
+      if (token.kind !== 'op' || token.text !== ',') this.fail(token, '"," or ")"');
+    }
+  }
+}
+
+/**
+ * Parses a formula; it must start with "=". Throws FormulaSyntaxError naming the place of the error.
+ */
+export function parseFormula(formula: string): FormulaNode {
+  const start = formula.indexOf('=');
+  if (start < 0 || formula.slice(0, start).trim() !== '') {
+    throw new FormulaSyntaxError('a formula must start with "="');
+  }
+  const body = formula.slice(start + 1);
+  if (body.trim() === '') throw new FormulaSyntaxError('the formula is empty after "="');
+  return new Parser(tokenize(body, start + 1)).parseFormula();
+}
+
+/** Every parameter key a formula refers to, once each, in order of appearance. */
+export function referencedKeys(node: FormulaNode): string[] {
+  const keys = new Set<string>();
+  const visit = (current: FormulaNode): void => {
+    switch (current.kind) {
+      case 'ref':
+        keys.add(current.key);
+        return;
+      case 'call':
+        current.args.forEach(visit);
+        return;
+      case 'unary':
+      case 'percent':
+        visit(current.operand);
+        return;
+      case 'binary':
+        visit(current.left);
+        visit(current.right);
+        return;
+      case 'number':
+        return;
+    }
+  };
+  visit(node);
+  return [...keys];
+}

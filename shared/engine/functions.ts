@@ -1,0 +1,187 @@
+import { ANGLE, DIMENSIONLESS, MASS, formatDimension, sameDimension, type Dimension } from '@/shared/engine/units';
+import type { FormulaNode } from '@/shared/engine/formula-parser';
+
+/**
+ * The functions a sheet formula may call. Each knows its dimensional rule (so formulas are
+ * checked before they run) and its plain-JS implementation (for the compiled evaluator, which
+ * must agree with HyperFormula's built-in function of the same name).
+ * PREDICTED is ours: PREDICTED(mass_row) is that row's current best estimate times
+ * (1 + its growth allowance from the sheet's allowance preset).
+ */
+export interface SheetFunction {
+  readonly minArgs: number;
+  readonly maxArgs: number;
+  /** The result's dimension from the arguments', or a message saying which argument is wrong. */
+  readonly dimension: (args: readonly Dimension[], nodes: readonly FormulaNode[]) => Dimension | string;
+  readonly evaluate: (...args: number[]) => number;
+}
+
+function requireDimensionless(name: string) {
+  return (args: readonly Dimension[]): Dimension | string => {
+    const bad = args.findIndex((dimension) => !sameDimension(dimension, DIMENSIONLESS));
+    return bad < 0
+      ? DIMENSIONLESS
+      : `${name} needs dimensionless arguments, argument ${bad + 1} is ${formatDimension(args[bad] ?? DIMENSIONLESS)}`;
+  };
+}
+
+function sameAsFirst(name: string) {
+  return (args: readonly Dimension[]): Dimension | string => {
+    const first = args[0] ?? DIMENSIONLESS;
+    const bad = args.findIndex((dimension) => !sameDimension(dimension, first));
+    return bad < 0
+      ? first
+      : `${name} needs arguments of one dimension: argument 1 is ${formatDimension(first)}, argument ${bad + 1} is ${formatDimension(args[bad] ?? DIMENSIONLESS)}`;
+  };
+}
+
+function trigonometric(name: string) {
+  return (args: readonly Dimension[]): Dimension | string => {
+    const arg = args[0] ?? DIMENSIONLESS;
+    return sameDimension(arg, ANGLE) || sameDimension(arg, DIMENSIONLESS)
+      ? DIMENSIONLESS
+      : `${name} needs an angle, got ${formatDimension(arg)}`;
+  };
+}
+
+function inverseTrigonometric(name: string) {
+  const check = requireDimensionless(name);
+  return (args: readonly Dimension[]): Dimension | string => {
+    const result = check(args);
+    return typeof result === 'string' ? result : ANGLE;
+  };
+}
+
+/** The value of a formula made only of numbers, or undefined when it refers to anything else. */
+export function constantValue(node: FormulaNode): number | undefined {
+  switch (node.kind) {
+    case 'number':
+      return node.value;
+    case 'unary': {
+      const operand = constantValue(node.operand);
+      return operand === undefined ? undefined : node.op === '-' ? -operand : operand;
+    }
+    case 'percent': {
+      const operand = constantValue(node.operand);
+      return operand === undefined ? undefined : operand / 100;
+    }
+    case 'binary': {
+      const left = constantValue(node.left);
+      const right = constantValue(node.right);
+      if (left === undefined || right === undefined) return undefined;
+      return applyArithmetic(node.op, left, right);
+    }
+    case 'call':
+      return node.name === 'PI' && node.args.length === 0 ? Math.PI : undefined;
+    case 'ref':
+      return undefined;
+  }
+}
+
+/** Arithmetic and comparison the way HyperFormula does them on numbers (true/false as 1/0). */
+export function applyArithmetic(op: string, left: number, right: number): number {
+  switch (op) {
+    case '+':
+      return left + right;
+    case '-':
+      return left - right;
+    case '*':
+      return left * right;
+    case '/':
+      return left / right;
+    case '^':
+      return Math.pow(left, right);
+    case '=':
+      return left === right ? 1 : 0;
+    case '<>':
+      return left !== right ? 1 : 0;
+    case '<':
+      return left < right ? 1 : 0;
+    case '>':
+      return left > right ? 1 : 0;
+    case '<=':
+      return left <= right ? 1 : 0;
+    default:
+      return left >= right ? 1 : 0;
+  }
+}
+
+/** Dimension of a power: base^exponent needs a constant exponent unless the base is a pure number. */
+export function powerDimension(base: Dimension, exponent: Dimension, exponentNode: FormulaNode | undefined): Dimension | string {
+  if (!sameDimension(exponent, DIMENSIONLESS)) return `an exponent must be dimensionless, got ${formatDimension(exponent)}`;
+  if (sameDimension(base, DIMENSIONLESS)) return DIMENSIONLESS;
+  const power = exponentNode === undefined ? undefined : constantValue(exponentNode);
+  if (power === undefined) {
+    return `raising ${formatDimension(base)} to a power needs a constant exponent`;
+  }
+  return base.map((value) => value * power);
+}
+
+function round(digits: number, value: number, mode: (x: number) => number): number {
+  const scale = Math.pow(10, Math.trunc(digits));
+  return (Math.sign(value) * mode(Math.abs(value) * scale)) / scale;
+}
+
+export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
+  SQRT: { minArgs: 1, maxArgs: 1, dimension: (args) => (args[0] ?? DIMENSIONLESS).map((value) => value / 2), evaluate: Math.sqrt },
+  POWER: {
+    minArgs: 2,
+    maxArgs: 2,
+    dimension: (args, nodes) => powerDimension(args[0] ?? DIMENSIONLESS, args[1] ?? DIMENSIONLESS, nodes[1]),
+    evaluate: Math.pow,
+  },
+  EXP: { minArgs: 1, maxArgs: 1, dimension: requireDimensionless('EXP'), evaluate: Math.exp },
+  LN: { minArgs: 1, maxArgs: 1, dimension: requireDimensionless('LN'), evaluate: Math.log },
+  LOG10: { minArgs: 1, maxArgs: 1, dimension: requireDimensionless('LOG10'), evaluate: Math.log10 },
+  LOG: {
+    minArgs: 1,
+    maxArgs: 2,
+    dimension: requireDimensionless('LOG'),
+    evaluate: (value, base = 10) => Math.log(value) / Math.log(base),
+  },
+  ABS: { minArgs: 1, maxArgs: 1, dimension: sameAsFirst('ABS'), evaluate: Math.abs },
+  SIGN: { minArgs: 1, maxArgs: 1, dimension: () => DIMENSIONLESS, evaluate: Math.sign },
+  // Rounding depends on the unit a value is written in, and formulas run in SI: only pure numbers may be rounded.
+  ROUND: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUND'), evaluate: (value, digits = 0) => round(digits, value, Math.round) },
+  ROUNDUP: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUNDUP'), evaluate: (value, digits = 0) => round(digits, value, Math.ceil) },
+  ROUNDDOWN: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUNDDOWN'), evaluate: (value, digits = 0) => round(digits, value, Math.floor) },
+  MIN: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MIN'), evaluate: Math.min },
+  MAX: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MAX'), evaluate: Math.max },
+  SUM: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('SUM'), evaluate: (...values) => values.reduce((sum, value) => sum + value, 0) },
+  AVERAGE: {
+    minArgs: 1,
+    maxArgs: 255,
+    dimension: sameAsFirst('AVERAGE'),
+    evaluate: (...values) => values.reduce((sum, value) => sum + value, 0) / values.length,
+  },
+  SIN: { minArgs: 1, maxArgs: 1, dimension: trigonometric('SIN'), evaluate: Math.sin },
+  COS: { minArgs: 1, maxArgs: 1, dimension: trigonometric('COS'), evaluate: Math.cos },
+  TAN: { minArgs: 1, maxArgs: 1, dimension: trigonometric('TAN'), evaluate: Math.tan },
+  ASIN: { minArgs: 1, maxArgs: 1, dimension: inverseTrigonometric('ASIN'), evaluate: Math.asin },
+  ACOS: { minArgs: 1, maxArgs: 1, dimension: inverseTrigonometric('ACOS'), evaluate: Math.acos },
+  ATAN: { minArgs: 1, maxArgs: 1, dimension: inverseTrigonometric('ATAN'), evaluate: Math.atan },
+  // Spreadsheet order: ATAN2(x, y) is the angle of the point (x, y).
+  ATAN2: {
+    minArgs: 2,
+    maxArgs: 2,
+    dimension: (args) => {
+      const same = sameAsFirst('ATAN2')(args);
+      return typeof same === 'string' ? same : ANGLE;
+    },
+    evaluate: (x, y) => Math.atan2(y, x),
+  },
+  PI: { minArgs: 0, maxArgs: 0, dimension: () => DIMENSIONLESS, evaluate: () => Math.PI },
+  IF: {
+    minArgs: 3,
+    maxArgs: 3,
+    dimension: (args) => sameAsFirst('IF (its two results)')(args.slice(1)),
+    evaluate: (condition, whenTrue, whenFalse) => (condition !== 0 ? whenTrue : whenFalse),
+  },
+  PREDICTED: {
+    minArgs: 1,
+    maxArgs: 1,
+    dimension: (args) =>
+      sameDimension(args[0] ?? DIMENSIONLESS, MASS) ? MASS : `PREDICTED needs a mass row, got ${formatDimension(args[0] ?? DIMENSIONLESS)}`,
+    evaluate: (currentBestEstimate, allowance) => currentBestEstimate * (1 + allowance),
+  },
+};

@@ -1,0 +1,85 @@
+import { DetailedCellError, ErrorType, HyperFormula, type CellValue, type RawCellContent } from 'hyperformula';
+import { rowError, type EngineError } from '@/shared/engine/errors';
+import type { FormulaNode } from '@/shared/engine/formula-parser';
+import type { AnalysedRow } from '@/shared/engine/sheet-model';
+
+/**
+ * The HyperFormula side of the engine. Row i of the sheet is row i+1 of one HyperFormula sheet:
+ * column A holds the SI value or the formula, column B the growth allowance of a mass row.
+ * Formulas are written from the parsed tree with absolute cell references in place of keys,
+ * fully parenthesised, so HyperFormula evaluates exactly the tree the engine checked.
+ */
+
+/** HyperFormula settings: no display rounding and no snapping of small differences to zero, so results are plain IEEE arithmetic. */
+export function hyperFormulaConfig(rowCount: number) {
+  return {
+    licenseKey: 'gpl-v3',
+    smartRounding: false,
+    precisionEpsilon: 0,
+    maxRows: Math.max(40_000, rowCount + 1),
+    useStats: false,
+  };
+}
+
+function cell(column: 'A' | 'B', index: number): string {
+  return `$${column}$${index + 1}`;
+}
+
+/** Writes a parsed formula in HyperFormula syntax, keys replaced by the cells that `indexOf` gives. */
+export function toHyperFormulaText(node: FormulaNode, indexOf: (key: string) => number): string {
+  switch (node.kind) {
+    case 'number':
+      return String(node.value);
+    case 'ref':
+      return cell('A', indexOf(node.key));
+    case 'unary':
+      return `${node.op}(${toHyperFormulaText(node.operand, indexOf)})`;
+    case 'percent':
+      return `(${toHyperFormulaText(node.operand, indexOf)})%`;
+    case 'binary':
+      return `(${toHyperFormulaText(node.left, indexOf)}${node.op}${toHyperFormulaText(node.right, indexOf)})`;
+    case 'call': {
+      const first = node.args[0];
+      if (node.name === 'PREDICTED' && first?.kind === 'ref') {
+        const index = indexOf(first.key);
+        return `(${cell('A', index)}*(1+${cell('B', index)}))`;
+      }
+      return `${node.name}(${node.args.map((arg) => toHyperFormulaText(arg, indexOf)).join(',')})`;
+    }
+  }
+}
+
+/** What column A of a row holds: nothing for a row that cannot be evaluated, else its SI value or formula. */
+export function cellContent(row: AnalysedRow, onCycle: boolean, indexOf: (key: string) => number): RawCellContent {
+  if (row.error !== undefined || onCycle) return null;
+  if (row.formula !== undefined) return `=${toHyperFormulaText(row.formula, indexOf)}`;
+  return row.siValue ?? null;
+}
+
+/** A HyperFormula result as an SI number, or the error of the row that holds it. */
+export function readCell(key: string, value: CellValue): number | EngineError {
+  if (typeof value === 'number') return value;
+  if (value instanceof DetailedCellError) {
+    switch (value.type) {
+      case ErrorType.DIV_BY_ZERO:
+        return rowError(key, 'division_by_zero', 'division by zero');
+      case ErrorType.NUM:
+        return rowError(key, 'invalid_value', 'the result is not a finite number (a root or logarithm of a negative number, or an overflow)');
+      case ErrorType.CYCLE:
+        return rowError(key, 'cycle', 'the formula refers to itself');
+      default:
+        return rowError(key, 'invalid_value', `the formula cannot be evaluated (${value.type}${value.message ? `: ${value.message}` : ''})`);
+    }
+  }
+  if (typeof value === 'boolean') return rowError(key, 'invalid_value', 'the formula gives a logical value (TRUE/FALSE), not a number');
+  if (value === null) return rowError(key, 'invalid_value', 'the row has no value');
+  return rowError(key, 'invalid_value', 'the formula gives text, not a number');
+}
+
+/** Builds the HyperFormula workbook for the given cell contents. */
+export function buildWorkbook(columns: ReadonlyArray<readonly [RawCellContent, RawCellContent]>): HyperFormula {
+  return HyperFormula.buildFromArray(
+    columns.map(([a, b]) => [a, b]),
+    hyperFormulaConfig(columns.length),
+  );
+}

@@ -1,0 +1,279 @@
+import { ExportedCellChange, type HyperFormula, type RawCellContent } from 'hyperformula';
+import type { Parameter, Sheet } from '@/shared/schemas/sheet';
+import { rowError, type EngineError } from '@/shared/engine/errors';
+import { buildWorkbook, cellContent, readCell } from '@/shared/engine/hyperformula-cells';
+import { analyseRow, buildGraph, type AnalysedRow, type DependencyGraph, type RowContext } from '@/shared/engine/sheet-model';
+import { formatDimension, fromSI, parseQuantity, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
+
+/** A row's result in its declared unit. */
+export interface EvaluatedValue {
+  readonly value: number;
+  readonly unit: string;
+}
+
+/** Outcome of an edit: the keys whose values were recomputed, or why the edit was refused. */
+export type EditResult = { ok: true; recomputed: string[] } | { ok: false; error: EngineError };
+
+/** A live sheet for the browser: edits recompute only their dependents and can be undone. */
+export interface SheetSession {
+  /** Every row that has a value, in its declared unit. Rows with errors are left out and listed in errors(). */
+  values(): Record<string, EvaluatedValue>;
+  /** One error per row that cannot be evaluated, in sheet order. */
+  errors(): EngineError[];
+  /** The sheet as it stands after the edits. */
+  sheet(): Sheet;
+  /** Sets an input: a number in the row's own unit, or text with a unit ("60 m"). A formula row becomes an input. */
+  setInput(key: string, value: number | string): EditResult;
+  /** Sets a row's formula ("=sail_side^2"). An input row becomes a formula row. */
+  setFormula(key: string, formula: string): EditResult;
+  /** Replaces a row's definition (unit, mass category, note, material, ...). The key must stay the same. */
+  updateParameter(key: string, parameter: Parameter): EditResult;
+  /** Undoes the last edit; false when there is nothing to undo. */
+  undo(): EditResult | false;
+  /** Redoes the last undone edit; false when there is nothing to redo. */
+  redo(): EditResult | false;
+  canUndo(): boolean;
+  canRedo(): boolean;
+  /** Releases the HyperFormula workbook. */
+  destroy(): void;
+}
+
+interface Edit {
+  readonly index: number;
+  readonly before: Parameter;
+  readonly after: Parameter;
+}
+
+/**
+ * A value for a row in that row's own unit: a bare number is already in it, text may carry its
+ * own unit ("60 m" for a row in km) and is converted, after checking the dimension.
+ */
+export function valueInRowUnit(parameter: Parameter, value: number | string): { ok: true; value: number } | { ok: false; error: EngineError } {
+  const fail = (code: EngineError['code'], detail: string) => ({ ok: false as const, error: rowError(parameter.key, code, detail) });
+  const quantity = typeof value === 'number' ? { ok: true as const, value: { value, unit: undefined } } : parseQuantity(value);
+  if (!quantity.ok) return fail(quantity.message.startsWith('unknown unit') ? 'unknown_unit' : 'invalid_value', quantity.message);
+  if (!Number.isFinite(quantity.value.value)) return fail('invalid_value', `value must be a finite number, got ${String(value)}`);
+  const given = quantity.value.unit;
+  if (given === undefined) return { ok: true, value: quantity.value.value };
+  const own = parseUnit(parameter.unit);
+  if (!own.ok) return fail('unknown_unit', own.message);
+  if (!sameDimension(own.value.dimension, given.dimension)) {
+    return fail(
+      'dimension_mismatch',
+      `unit "${parameter.unit}" expects ${formatDimension(own.value.dimension)} but "${String(value)}" is ${formatDimension(given.dimension)}`,
+    );
+  }
+  return { ok: true, value: fromSI(toSI(quantity.value.value, given), own.value) };
+}
+
+function sameMass(a: Parameter['mass'], b: Parameter['mass']): boolean {
+  return a?.maturity === b?.maturity && a?.category === b?.category;
+}
+
+function sameList(a: readonly string[], b: readonly string[]): boolean {
+  return a.length === b.length && a.every((item, index) => item === b[index]);
+}
+
+class Session implements SheetSession {
+  private readonly name: string;
+  private readonly budget: Sheet['budget'];
+  private readonly parameters: Parameter[];
+  private readonly rows: AnalysedRow[];
+  private readonly indexOf = new Map<string, number>();
+  private readonly duplicates: ReadonlyMap<number, EngineError>;
+  private graph: DependencyGraph;
+  private readonly contents: Array<readonly [RawCellContent, RawCellContent]>;
+  private readonly workbook: HyperFormula;
+  private readonly results: Array<number | EngineError>;
+  private readonly undoStack: Edit[] = [];
+  private readonly redoStack: Edit[] = [];
+  private readonly context: RowContext;
+
+  constructor(sheet: Sheet) {
+    this.name = sheet.name;
+    this.budget = sheet.budget;
+    const duplicates = new Map<number, EngineError>();
+    sheet.parameters.forEach((parameter, index) => {
+      if (this.indexOf.has(parameter.key)) {
+        duplicates.set(index, rowError(parameter.key, 'duplicate_key', `key is used by more than one row (row ${index + 1})`));
+      } else {
+        this.indexOf.set(parameter.key, index);
+      }
+    });
+    this.duplicates = duplicates;
+    this.context = {
+      budget: this.budget,
+      parameterOf: (key) => {
+        const index = this.indexOf.get(key);
+        return index === undefined ? undefined : this.parameters[index];
+      },
+    };
+    this.parameters = [...sheet.parameters];
+    this.rows = this.parameters.map((parameter) => analyseRow(parameter, this.context));
+    this.graph = buildGraph(this.rows, this.indexOf);
+    this.contents = this.rows.map((_, index) => this.contentOf(index));
+    this.workbook = buildWorkbook(this.contents);
+    const initial = this.workbook.getSheetValues(0);
+    this.results = this.rows.map((row, index) => readCell(row.parameter.key, initial[index]?.[0] ?? null));
+  }
+
+  private readonly cellIndex = (key: string): number => this.indexOf.get(key) ?? -1;
+
+  private contentOf(index: number): readonly [RawCellContent, RawCellContent] {
+    const row = this.rows[index];
+    if (row === undefined || this.duplicates.has(index)) return [null, null];
+    return [cellContent(row, this.graph.cycles.has(index), this.cellIndex), row.allowance ?? null];
+  }
+
+  private states(): Array<EngineError | undefined> {
+    const states: Array<EngineError | undefined> = this.rows.map(() => undefined);
+    for (const index of this.graph.order) {
+      const row = this.rows[index];
+      if (row === undefined) continue;
+      const key = row.parameter.key;
+      const cycle = this.graph.cycles.get(index);
+      const failedDependency = (this.graph.dependencies[index] ?? []).find((dependency) => states[dependency] !== undefined);
+      const result = this.results[index];
+      if (this.duplicates.has(index)) states[index] = this.duplicates.get(index);
+      else if (row.error !== undefined) states[index] = row.error;
+      else if (cycle !== undefined) states[index] = rowError(key, 'cycle', `is on a cycle of formulas: ${[...cycle, cycle[0]].join(' -> ')}`);
+      else if (failedDependency !== undefined) {
+        const upstream = this.rows[failedDependency]?.parameter.key ?? '';
+        states[index] = rowError(key, 'dependency_error', `depends on ${upstream}, which has an error`);
+      } else if (typeof result !== 'number') states[index] = result;
+    }
+    return states;
+  }
+
+  values(): Record<string, EvaluatedValue> {
+    const states = this.states();
+    const values: Record<string, EvaluatedValue> = {};
+    this.rows.forEach((row, index) => {
+      const result = this.results[index];
+      if (states[index] !== undefined || typeof result !== 'number' || row.unit === undefined) return;
+      // An input reads back as typed: converting it to SI and back would add float noise.
+      const value = row.parameter.value ?? fromSI(result, row.unit);
+      values[row.parameter.key] = { value, unit: row.parameter.unit };
+    });
+    return values;
+  }
+
+  errors(): EngineError[] {
+    return this.states().filter((state): state is EngineError => state !== undefined);
+  }
+
+  sheet(): Sheet {
+    const sheet: Sheet = { name: this.name, parameters: this.rows.map((row) => row.parameter) };
+    return this.budget === undefined ? sheet : { ...sheet, budget: this.budget };
+  }
+
+  private editable(key: string): { ok: true; index: number; parameter: Parameter } | { ok: false; error: EngineError } {
+    const index = this.indexOf.get(key);
+    const parameter = index === undefined ? undefined : this.rows[index]?.parameter;
+    if (index === undefined || parameter === undefined) return { ok: false, error: rowError(key, 'unknown_key', 'no row has this key') };
+    if (parameter.protected === true) return { ok: false, error: rowError(key, 'protected', 'the row is protected and cannot be edited') };
+    return { ok: true, index, parameter };
+  }
+
+  setInput(key: string, value: number | string): EditResult {
+    const target = this.editable(key);
+    if (!target.ok) return target;
+    const converted = valueInRowUnit(target.parameter, value);
+    if (!converted.ok) return converted;
+    const { formula: _formula, material: _material, ...rest } = target.parameter;
+    return this.record(target.index, target.parameter, { ...rest, value: converted.value });
+  }
+
+  setFormula(key: string, formula: string): EditResult {
+    const target = this.editable(key);
+    if (!target.ok) return target;
+    const { value: _value, material: _material, ...rest } = target.parameter;
+    return this.record(target.index, target.parameter, { ...rest, formula });
+  }
+
+  updateParameter(key: string, parameter: Parameter): EditResult {
+    const target = this.editable(key);
+    if (!target.ok) return target;
+    if (parameter.key !== key) return { ok: false, error: rowError(key, 'invalid_key', `an edit cannot change the key (to "${parameter.key}")`) };
+    return this.record(target.index, target.parameter, parameter);
+  }
+
+  private record(index: number, before: Parameter, after: Parameter): EditResult {
+    this.undoStack.push({ index, before, after });
+    this.redoStack.length = 0;
+    return this.apply(index, after);
+  }
+
+  undo(): EditResult | false {
+    const edit = this.undoStack.pop();
+    if (edit === undefined) return false;
+    this.redoStack.push(edit);
+    return this.apply(edit.index, edit.before);
+  }
+
+  redo(): EditResult | false {
+    const edit = this.redoStack.pop();
+    if (edit === undefined) return false;
+    this.undoStack.push(edit);
+    return this.apply(edit.index, edit.after);
+  }
+
+  canUndo(): boolean {
+    return this.undoStack.length > 0;
+  }
+
+  canRedo(): boolean {
+    return this.redoStack.length > 0;
+  }
+
+  destroy(): void {
+    this.workbook.destroy();
+  }
+
+  /** Re-analyses the edited row (and, when its unit or mass category changed, the rows reading it), then updates only the cells that changed. */
+  private apply(index: number, parameter: Parameter): EditResult {
+    const old = this.rows[index];
+    if (old === undefined) return { ok: false, error: rowError(parameter.key, 'unknown_key', 'no row has this key') };
+    this.parameters[index] = parameter;
+    const next = analyseRow(parameter, this.context);
+    this.rows[index] = next;
+    const touched = new Set<number>([index]);
+    if (old.parameter.unit !== parameter.unit || !sameMass(old.parameter.mass, parameter.mass)) {
+      for (const dependent of this.graph.dependents[index] ?? []) {
+        const row = this.rows[dependent];
+        if (row === undefined) continue;
+        this.rows[dependent] = analyseRow(row.parameter, this.context);
+        touched.add(dependent);
+      }
+    }
+    const graphChanged = !sameList(old.dependencies, next.dependencies);
+    if (graphChanged) this.graph = buildGraph(this.rows, this.indexOf);
+    const candidates = graphChanged ? this.rows.map((_, row) => row) : [...touched];
+    const changes = this.workbook.batch(() => {
+      for (const candidate of candidates) {
+        const content = this.contentOf(candidate);
+        const current = this.contents[candidate];
+        if (current !== undefined && current[0] === content[0] && current[1] === content[1]) continue;
+        this.contents[candidate] = content;
+        this.workbook.setCellContents({ sheet: 0, col: 0, row: candidate }, [[content[0], content[1]]]);
+      }
+    });
+    const recomputed = new Set<number>(touched);
+    for (const change of changes) {
+      if (!(change instanceof ExportedCellChange) || change.col !== 0) continue;
+      const row = this.rows[change.row];
+      if (row === undefined) continue;
+      this.results[change.row] = readCell(row.parameter.key, change.newValue);
+      recomputed.add(change.row);
+    }
+    return {
+      ok: true,
+      recomputed: [...recomputed].sort((a, b) => a - b).map((row) => this.rows[row]?.parameter.key ?? ''),
+    };
+  }
+}
+
+/** Opens a live session on a sheet. Call destroy() when done to free the workbook. */
+export function createSheetSession(sheet: Sheet): SheetSession {
+  return new Session(sheet);
+}

@@ -1,0 +1,307 @@
+import { growthAllowance } from '@/shared/budget/allowance';
+import { allowancePresets, findPreset } from '@/shared/budget/presets';
+import type { AllowancePreset } from '@/shared/budget/types';
+import { materialProperty } from '@/shared/sail/materials';
+import type { Parameter, Sheet } from '@/shared/schemas/sheet';
+import { parameterKeyProblem } from '@/shared/schemas/sheet';
+import { rowError, type EngineError, type EngineErrorCode } from '@/shared/engine/errors';
+import { FormulaSyntaxError, parseFormula, referencedKeys, type FormulaNode } from '@/shared/engine/formula-parser';
+import { powerDimension, sheetFunctions } from '@/shared/engine/functions';
+import {
+  DIMENSIONLESS,
+  formatDimension,
+  parseUnit,
+  sameDimension,
+  toSI,
+  type Dimension,
+  type Parsed,
+  type ParsedUnit,
+} from '@/shared/engine/units';
+
+/**
+ * Static analysis of a sheet: each row's unit, parsed formula, SI input value and dimension
+ * check, then the dependency graph with its cycles and an evaluation order. Nothing here
+ * evaluates formulas; it decides what may be evaluated and what each row depends on.
+ */
+
+/** One analysed row. `error` is the row's own problem, before looking at its dependencies. */
+export interface AnalysedRow {
+  readonly parameter: Parameter;
+  readonly unit: ParsedUnit | undefined;
+  readonly formula: FormulaNode | undefined;
+  /** SI value of an input or material row. */
+  readonly siValue: number | undefined;
+  /** Growth allowance (fraction) of a mass row, when the sheet's preset gives one. */
+  readonly allowance: number | undefined;
+  readonly dependencies: readonly string[];
+  readonly error: EngineError | undefined;
+}
+
+/** What analysing one row needs to know about the rest of the sheet. */
+export interface RowContext {
+  parameterOf(key: string): Parameter | undefined;
+  readonly budget: Sheet['budget'];
+}
+
+class RowProblem extends Error {
+  constructor(
+    readonly code: EngineErrorCode,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+/** The allowance preset a sheet names, or why there is none. */
+export function sheetPreset(budget: Sheet['budget']): Parsed<AllowancePreset> {
+  if (budget === undefined) return { ok: false, message: 'the sheet names no allowance preset (budget.preset)' };
+  const preset = findPreset(budget.preset);
+  if (preset === undefined) {
+    const known = allowancePresets.map((candidate) => candidate.id).join(', ');
+    return { ok: false, message: `unknown allowance preset "${budget.preset}" (known: ${known})` };
+  }
+  return { ok: true, value: preset };
+}
+
+/** The growth allowance of a mass row under the sheet's preset, or why there is none. */
+export function rowAllowance(parameter: Parameter, budget: Sheet['budget']): Parsed<number> {
+  if (parameter.mass === undefined) {
+    return { ok: false, message: `${parameter.key} is not a mass row (it has no maturity and category)` };
+  }
+  const preset = sheetPreset(budget);
+  if (!preset.ok) return preset;
+  try {
+    return { ok: true, value: growthAllowance(preset.value, parameter.mass.maturity, parameter.mass.category) };
+  } catch (error) {
+    return { ok: false, message: `${parameter.key}: ${error instanceof Error ? error.message : String(error)}` };
+  }
+}
+
+function mismatch(what: string, left: Dimension, right: Dimension): RowProblem {
+  return new RowProblem('dimension_mismatch', `${what} ${formatDimension(left)} and ${formatDimension(right)}`);
+}
+
+/**
+ * Dimension of a formula's result from the declared units of the rows it reads.
+ * Undefined when a row it reads has no usable unit (that row carries the error).
+ * Throws RowProblem for unknown functions, wrong argument counts and inconsistent dimensions.
+ */
+function inferDimension(node: FormulaNode, context: RowContext): Dimension | undefined {
+  switch (node.kind) {
+    case 'number':
+      return DIMENSIONLESS;
+    case 'ref': {
+      const parameter = context.parameterOf(node.key);
+      if (parameter === undefined) throw new RowProblem('unknown_key', `unknown key "${node.key}" in the formula`);
+      const unit = parseUnit(parameter.unit);
+      return unit.ok ? unit.value.dimension : undefined;
+    }
+    case 'unary':
+    case 'percent':
+      return inferDimension(node.operand, context);
+    case 'binary': {
+      const left = inferDimension(node.left, context);
+      const right = inferDimension(node.right, context);
+      if (left === undefined || right === undefined) return undefined;
+      switch (node.op) {
+        case '*':
+          return left.map((value, index) => value + (right[index] ?? 0));
+        case '/':
+          return left.map((value, index) => value - (right[index] ?? 0));
+        case '^': {
+          const power = powerDimension(left, right, node.right);
+          if (typeof power === 'string') throw new RowProblem('dimension_mismatch', power);
+          return power;
+        }
+        case '+':
+        case '-':
+          if (!sameDimension(left, right)) throw mismatch(`cannot ${node.op === '+' ? 'add' : 'subtract'}`, left, right);
+          return left;
+        default:
+          if (!sameDimension(left, right)) throw mismatch(`cannot compare (${node.op})`, left, right);
+          return DIMENSIONLESS;
+      }
+    }
+    case 'call':
+      return inferCallDimension(node, context);
+  }
+}
+
+function inferCallDimension(node: Extract<FormulaNode, { kind: 'call' }>, context: RowContext): Dimension | undefined {
+  const fn = sheetFunctions[node.name];
+  if (fn === undefined) {
+    const known = Object.keys(sheetFunctions).join(', ');
+    throw new RowProblem('unknown_function', `unknown or unsupported function ${node.name} (supported: ${known})`);
+  }
+  if (node.args.length < fn.minArgs || node.args.length > fn.maxArgs) {
+    const expected = fn.minArgs === fn.maxArgs ? `${fn.minArgs}` : `${fn.minArgs} to ${fn.maxArgs}`;
+    throw new RowProblem('wrong_argument_count', `${node.name} takes ${expected} argument(s), got ${node.args.length}`);
+  }
+  if (node.name === 'PREDICTED') checkPredictedArgument(node.args[0], context);
+  const args = node.args.map((arg) => inferDimension(arg, context));
+  if (args.some((arg) => arg === undefined)) return undefined;
+  const result = fn.dimension(
+    args.map((arg) => arg ?? DIMENSIONLESS),
+    node.args,
+  );
+  if (typeof result === 'string') throw new RowProblem('dimension_mismatch', result);
+  return result;
+}
+
+function checkPredictedArgument(arg: FormulaNode | undefined, context: RowContext): void {
+  if (arg?.kind !== 'ref') throw new RowProblem('invalid_argument', 'PREDICTED takes the key of a mass row, e.g. PREDICTED(bus_mass)');
+  const target = context.parameterOf(arg.key);
+  if (target === undefined) throw new RowProblem('unknown_key', `unknown key "${arg.key}" in the formula`);
+  const allowance = rowAllowance(target, context.budget);
+  if (!allowance.ok) {
+    throw new RowProblem(target.mass === undefined ? 'invalid_argument' : 'budget_error', `PREDICTED(${arg.key}): ${allowance.message}`);
+  }
+}
+
+function inputValue(parameter: Parameter, unit: ParsedUnit): number {
+  if (parameter.material !== undefined) {
+    const { id, property } = parameter.material;
+    const found = materialProperty(id, property);
+    if (found === undefined) throw new RowProblem('unknown_material', `the materials library has no property "${property}" for material "${id}"`);
+    const materialUnit = parseUnit(found.unit);
+    if (!materialUnit.ok) throw new RowProblem('unknown_unit', `material "${id}" ${property}: ${materialUnit.message}`);
+    if (!sameDimension(materialUnit.value.dimension, unit.dimension)) {
+      throw new RowProblem(
+        'dimension_mismatch',
+        `unit "${parameter.unit}" expects ${formatDimension(unit.dimension)} but material "${id}" ${property} is ${formatDimension(materialUnit.value.dimension)} (${found.unit})`,
+      );
+    }
+    return toSI(found.value, materialUnit.value);
+  }
+  const value = parameter.value;
+  if (value === undefined || !Number.isFinite(value)) {
+    throw new RowProblem('invalid_value', `value must be a finite number, got ${String(value)}`);
+  }
+  return toSI(value, unit);
+}
+
+function parseRowFormula(formulaText: string): Parsed<FormulaNode> {
+  try {
+    return { ok: true, value: parseFormula(formulaText) };
+  } catch (error) {
+    if (error instanceof FormulaSyntaxError) return { ok: false, message: `syntax error in "${formulaText}": ${error.message}` };
+    throw error;
+  }
+}
+
+function checkFormula(parameter: Parameter, formula: Parsed<FormulaNode>, unit: ParsedUnit, context: RowContext): FormulaNode {
+  if (!formula.ok) throw new RowProblem('syntax_error', formula.message);
+  const found = inferDimension(formula.value, context);
+  if (found !== undefined && !sameDimension(found, unit.dimension)) {
+    throw new RowProblem(
+      'dimension_mismatch',
+      `unit "${parameter.unit}" expects ${formatDimension(unit.dimension)} but the formula gives ${formatDimension(found)}`,
+    );
+  }
+  return formula.value;
+}
+
+/** Analyses one row against the rest of the sheet. Never throws: problems go into `error`. */
+export function analyseRow(parameter: Parameter, context: RowContext): AnalysedRow {
+  const allowance = parameter.mass === undefined ? undefined : rowAllowance(parameter, context.budget);
+  const formula = parameter.formula === undefined ? undefined : parseRowFormula(parameter.formula);
+  const base = {
+    parameter,
+    unit: undefined,
+    formula: undefined,
+    siValue: undefined,
+    allowance: allowance?.ok === true ? allowance.value : undefined,
+    dependencies: formula?.ok === true ? referencedKeys(formula.value) : [],
+    error: undefined,
+  };
+  const keyProblem = parameterKeyProblem(parameter.key);
+  if (keyProblem !== undefined) return { ...base, error: rowError(parameter.key, 'invalid_key', `key ${keyProblem}`) };
+  const unit = parseUnit(parameter.unit);
+  if (!unit.ok) return { ...base, error: rowError(parameter.key, 'unknown_unit', unit.message) };
+  try {
+    const given = [parameter.value, parameter.formula, parameter.material].filter((field) => field !== undefined);
+    if (given.length !== 1) throw new RowProblem('invalid_value', 'needs exactly one of a value, a formula or a material');
+    if (formula !== undefined) return { ...base, unit: unit.value, formula: checkFormula(parameter, formula, unit.value, context) };
+    return { ...base, unit: unit.value, siValue: inputValue(parameter, unit.value) };
+  } catch (error) {
+    if (!(error instanceof RowProblem)) throw error;
+    return { ...base, unit: unit.value, error: rowError(parameter.key, error.code, error.message) };
+  }
+}
+
+/** The dependency graph: indices of each row's dependencies, cycle messages, and an evaluation order. */
+export interface DependencyGraph {
+  readonly dependencies: readonly (readonly number[])[];
+  readonly dependents: readonly (readonly number[])[];
+  /** For rows on a cycle, the keys of the cycle. */
+  readonly cycles: ReadonlyMap<number, readonly string[]>;
+  /** Every row, each after the rows it depends on (rows on one cycle in any order). */
+  readonly order: readonly number[];
+}
+
+/** Builds the dependency graph of analysed rows (Tarjan's strongly connected components, iterative). */
+export function buildGraph(rows: readonly AnalysedRow[], indexOf: ReadonlyMap<string, number>): DependencyGraph {
+  const dependencies = rows.map((row) =>
+    row.dependencies.flatMap((key) => {
+      const index = indexOf.get(key);
+      return index === undefined ? [] : [index];
+    }),
+  );
+  const dependents: number[][] = rows.map(() => []);
+  dependencies.forEach((list, index) => list.forEach((dependency) => dependents[dependency]?.push(index)));
+
+  const lowLink = new Int32Array(rows.length).fill(-1);
+  const visitIndex = new Int32Array(rows.length).fill(-1);
+  const onStack = new Uint8Array(rows.length);
+  const stack: number[] = [];
+  const order: number[] = [];
+  const cycles = new Map<number, readonly string[]>();
+  let counter = 0;
+
+  const keyAt = (index: number): string => rows[index]?.parameter.key ?? '';
+  for (let root = 0; root < rows.length; root += 1) {
+    if (visitIndex[root] !== -1) continue;
+    const work: Array<{ node: number; next: number }> = [{ node: root, next: 0 }];
+    visitIndex[root] = lowLink[root] = counter++;
+    stack.push(root);
+    onStack[root] = 1;
+    while (work.length > 0) {
+      const frame = work[work.length - 1];
+      if (frame === undefined) break;
+      const edges = dependencies[frame.node] ?? [];
+      const target = edges[frame.next];
+      if (target !== undefined) {
+        frame.next += 1;
+        if (visitIndex[target] === -1) {
+          visitIndex[target] = lowLink[target] = counter++;
+          stack.push(target);
+          onStack[target] = 1;
+          work.push({ node: target, next: 0 });
+        } else if (onStack[target] === 1) {
+          lowLink[frame.node] = Math.min(lowLink[frame.node] ?? 0, visitIndex[target] ?? 0);
+        }
+        continue;
+      }
+      work.pop();
+      const parent = work[work.length - 1];
+      if (parent !== undefined) lowLink[parent.node] = Math.min(lowLink[parent.node] ?? 0, lowLink[frame.node] ?? 0);
+      if (lowLink[frame.node] !== visitIndex[frame.node]) continue;
+      const component: number[] = [];
+      for (;;) {
+        const member = stack.pop();
+        if (member === undefined) break;
+        onStack[member] = 0;
+        component.push(member);
+        if (member === frame.node) break;
+      }
+      component.sort((a, b) => a - b);
+      order.push(...component);
+      const selfLoop = component.length === 1 && edges.includes(frame.node);
+      if (component.length > 1 || selfLoop) {
+        const keys = component.map(keyAt);
+        component.forEach((member) => cycles.set(member, keys));
+      }
+    }
+  }
+  return { dependencies, dependents, cycles, order };
+}
