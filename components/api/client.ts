@@ -1,0 +1,110 @@
+import type { z } from 'zod';
+import { apiErrorSchema, fieldErrorSchema, type FieldError } from '@/shared/schemas/common';
+import { sessionResponseSchema } from '@/shared/schemas/session';
+
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+/** Same origin unless the build names another API host. */
+const baseUrl = process.env.EXPO_PUBLIC_API_URL ?? '';
+
+/** A failed API call: the HTTP status and the server's `{ error: { code, message, details } }`. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly details: unknown;
+
+  constructor(status: number, code: string, message: string, details?: unknown) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.details = details;
+  }
+
+  /** The field-by-field validation details, if the server sent any in the shared FieldError shape. */
+  get fieldErrors(): FieldError[] {
+    const parsed = fieldErrorSchema.array().safeParse(this.details);
+    return parsed.success ? parsed.data : [];
+  }
+}
+
+let csrfToken: string | null = null;
+
+/** Remembers the CSRF token from the latest session response; state-changing requests send it back. */
+export function rememberCsrfToken(token: string | null): void {
+  csrfToken = token;
+}
+
+async function currentCsrfToken(): Promise<string> {
+  if (csrfToken !== null) return csrfToken;
+  // No session fetched yet (or it was forgotten at sign-out): fetch one just for the token.
+  const session = await apiRequest('GET', '/api/auth/session', { schema: sessionResponseSchema });
+  csrfToken = session.csrfToken;
+  return session.csrfToken;
+}
+
+export type RequestOptions<S extends z.ZodType | undefined> = {
+  body?: unknown;
+  /** Parses the response body; leave out for responses without a body (204). */
+  schema?: S;
+};
+
+type Result<S> = S extends z.ZodType ? z.output<S> : undefined;
+
+/**
+ * Calls the Trimsheet API: JSON in and out, cookies included, the CSRF header on state-changing requests.
+ * Resolves with the response parsed by `schema`; rejects with an ApiError for error responses, network
+ * failures (status 0) and responses that do not match the schema.
+ */
+export async function apiRequest<S extends z.ZodType | undefined = undefined>(
+  method: Method,
+  path: string,
+  { body, schema }: RequestOptions<S> = {},
+): Promise<Result<S>> {
+  const headers: Record<string, string> = { accept: 'application/json' };
+  if (body !== undefined) headers['content-type'] = 'application/json';
+  if (method !== 'GET') headers['x-csrf-token'] = await currentCsrfToken();
+
+  let response: Response;
+  try {
+    response = await fetch(`${baseUrl}${path}`, {
+      method,
+      headers,
+      credentials: 'include',
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch (cause) {
+    const reason = cause instanceof Error ? cause.message : String(cause);
+    throw new ApiError(0, 'network_error', `Could not reach the server (${method} ${path}): ${reason}`);
+  }
+
+  const payload = await readJson(response);
+  if (!response.ok) throw toApiError(response.status, payload, method, path);
+  if (schema === undefined) return undefined as Result<S>;
+
+  const parsed = schema.safeParse(payload);
+  if (!parsed.success) {
+    const where = parsed.error.issues[0]?.path.join('.') || '(root)';
+    throw new ApiError(response.status, 'unexpected_response', `The server's answer to ${method} ${path} was not understood at "${where}".`);
+  }
+  return parsed.data as Result<S>;
+}
+
+async function readJson(response: Response): Promise<unknown> {
+  const text = await response.text();
+  if (text === '') return undefined;
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    return text;
+  }
+}
+
+function toApiError(status: number, payload: unknown, method: Method, path: string): ApiError {
+  const parsed = apiErrorSchema.safeParse(payload);
+  if (parsed.success) {
+    const { code, message, details } = parsed.data.error;
+    return new ApiError(status, code, message, details);
+  }
+  return new ApiError(status, 'http_error', `${method} ${path} failed with HTTP ${status}.`);
+}

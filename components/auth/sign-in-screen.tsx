@@ -1,0 +1,71 @@
+import { StyleSheet, View } from 'react-native';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { SailMark } from '@/components/ui/sail-mark';
+import { AppText } from '@/components/ui/text';
+import { colors, space } from '@/components/ui/theme';
+import type { SessionResponse } from '@/shared/schemas/session';
+import { assignPageLocation } from './page-navigation';
+import { useSession } from './queries';
+
+type ProviderId = SessionResponse['providers'][number]['id'];
+
+const buttonLabels: Record<ProviderId, string> = {
+  google: 'Sign in with Google',
+  sso: 'Company SSO',
+};
+
+const knownErrors: Record<string, string> = {
+  access_denied: 'Sign-in was cancelled at the provider.',
+  not_invited: 'This account has not been invited to an organisation yet. Ask an organisation admin for an invitation.',
+};
+
+/** Turns an `?error=` code from the sign-in redirect into a sentence a person can act on. */
+export function describeSignInError(code: string): string {
+  const known = knownErrors[code];
+  if (known) return known;
+  const words = code.replace(/[_-]+/g, ' ').trim();
+  return `Sign-in did not complete (${words || 'unknown reason'}). Please try again.`;
+}
+
+export type SignInScreenProps = {
+  /** The `error` query parameter the server adds when a sign-in fails. */
+  error?: string;
+};
+
+/** The signed-out landing page: what Trimsheet is and the two ways to sign in. */
+export function SignInScreen({ error }: SignInScreenProps) {
+  const providers = useSession().data?.providers ?? [];
+  return (
+    <View style={styles.page}>
+      <Card style={styles.card}>
+        <SailMark size={56} />
+        <AppText variant="display">Trimsheet</AppText>
+        <AppText variant="muted">Sizing sheets and mass budgets for solar-sail spacecraft, kept in revisions your whole team can trust.</AppText>
+        {error ? (
+          <View style={styles.error} role="alert" testID="sign-in-error">
+            <AppText variant="error">{describeSignInError(error)}</AppText>
+          </View>
+        ) : null}
+        <View style={styles.buttons}>
+          {providers.map((provider) => (
+            <Button
+              key={provider.id}
+              label={buttonLabels[provider.id]}
+              tone={provider.id === 'google' ? 'primary' : 'secondary'}
+              testID={`sign-in-${provider.id}`}
+              onPress={() => assignPageLocation(provider.startUrl)}
+            />
+          ))}
+        </View>
+      </Card>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  page: { flex: 1, backgroundColor: colors.background, alignItems: 'center', justifyContent: 'center', padding: space.lg },
+  card: { width: '100%', maxWidth: 420, padding: space.xl, gap: space.lg },
+  error: { backgroundColor: colors.dangerSoft, borderRadius: 10, padding: space.md },
+  buttons: { gap: space.md },
+});

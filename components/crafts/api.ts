@@ -1,0 +1,23 @@
+import { apiRequest } from '@/components/api/client';
+import { craftListSchema, craftSchema, type Craft, type CreateCraftBody, type UpdateCraftBody } from '@/shared/schemas/crafts';
+
+/** GET /api/crafts: the crafts the caller is a member of (all of the organisation's for org admins). */
+export async function listCrafts(): Promise<Craft[]> {
+  const { crafts } = await apiRequest('GET', '/api/crafts', { schema: craftListSchema });
+  return crafts;
+}
+
+/** GET /api/crafts/:craftId */
+export function getCraft(craftId: string): Promise<Craft> {
+  return apiRequest('GET', `/api/crafts/${encodeURIComponent(craftId)}`, { schema: craftSchema });
+}
+
+/** POST /api/crafts (org admins); the creator becomes its chief engineer. */
+export function createCraft(body: CreateCraftBody): Promise<Craft> {
+  return apiRequest('POST', '/api/crafts', { body, schema: craftSchema });
+}
+
+/** PATCH /api/crafts/:craftId (chief engineers and org admins). */
+export function updateCraft(craftId: string, body: UpdateCraftBody): Promise<Craft> {
+  return apiRequest('PATCH', `/api/crafts/${encodeURIComponent(craftId)}`, { body, schema: craftSchema });
+}

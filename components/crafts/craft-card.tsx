@@ -1,0 +1,43 @@
+import { Link } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { Badge } from '@/components/ui/badge';
+import { AppText } from '@/components/ui/text';
+import { colors, radii, space } from '@/components/ui/theme';
+import type { Craft } from '@/shared/schemas/crafts';
+import { myRoleLabel } from './role-label';
+
+/** A craft in the list: name, description and the caller's role; opens the craft. */
+export function CraftCard({ craft }: { craft: Craft }) {
+  return (
+    <Link href={{ pathname: '/crafts/[craftId]', params: { craftId: craft.id } }} asChild>
+      <Pressable role="link" aria-label={`Open ${craft.name}`} testID={`craft-card-${craft.id}`} style={({ pressed }) => [styles.card, pressed && styles.pressed]}>
+        <View style={styles.top}>
+          <AppText variant="heading" style={styles.name}>
+            {craft.name}
+          </AppText>
+          <Badge label={myRoleLabel(craft.myRole)} strong />
+        </View>
+        <AppText variant="muted" numberOfLines={3}>
+          {craft.description || 'No description yet.'}
+        </AppText>
+        <AppText variant="mono">Updated {craft.updatedAt.slice(0, 10)}</AppText>
+      </Pressable>
+    </Link>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderLeftWidth: 4,
+    borderLeftColor: colors.accent,
+    borderRadius: radii.lg,
+    padding: space.lg,
+    gap: space.sm,
+  },
+  pressed: { backgroundColor: colors.surfaceSunken },
+  top: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'center', gap: space.sm },
+  name: { flexShrink: 1 },
+});

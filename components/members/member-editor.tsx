@@ -1,0 +1,110 @@
+import { useState, type ReactNode } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { ApiError } from '@/components/api/client';
+import { Button } from '@/components/ui/button';
+import { ChoiceChips } from '@/components/ui/choice-chips';
+import { AppText } from '@/components/ui/text';
+import { TextField } from '@/components/ui/text-field';
+import { space } from '@/components/ui/theme';
+import { setMemberBodySchema, type SetMemberBody } from '@/shared/schemas/members';
+import { craftRoleLabels, craftRoles, type CraftRole } from '@/shared/schemas/roles';
+
+const roleChoices = craftRoles.map((role) => ({ value: role, label: craftRoleLabels[role] }));
+
+type Errors = { role?: string; subsystems?: string; form?: string };
+
+/** Splits "Sail membrane, Booms" into trimmed subsystem names. */
+function parseSubsystems(text: string): string[] {
+  return text
+    .split(',')
+    .map((name) => name.trim())
+    .filter((name) => name !== '');
+}
+
+function errorsFrom(error: unknown): Errors {
+  if (!(error instanceof ApiError)) return { form: error instanceof Error ? error.message : String(error) };
+  const errors: Errors = {};
+  for (const detail of error.fieldErrors) {
+    const field = detail.path.split('.')[1];
+    if (field === 'role' || field === 'subsystems') errors[field] ??= detail.message;
+    else errors.form ??= detail.message;
+  }
+  if (error.fieldErrors.length === 0) errors.form = error.message;
+  return errors;
+}
+
+export type MemberEditorProps = {
+  initialRole?: CraftRole;
+  initialSubsystems?: readonly string[];
+  submitLabel: string;
+  /** Saves the membership; field errors from the server appear beside role or subsystems. */
+  onSubmit: (body: SetMemberBody) => Promise<unknown>;
+  onCancel?: () => void;
+  /** Refuses to submit, e.g. while no person is picked; the reason is shown as a form error. */
+  blockedReason?: string;
+  /** Fields shown above the role, e.g. the person picker when adding. */
+  children?: ReactNode;
+  testID: string;
+};
+
+/** Role and (for subsystem owners) subsystems of one craft member. */
+export function MemberEditor({ initialRole, initialSubsystems = [], submitLabel, onSubmit, onCancel, blockedReason, children, testID }: MemberEditorProps) {
+  const [role, setRole] = useState<CraftRole | null>(initialRole ?? null);
+  const [subsystems, setSubsystems] = useState(initialSubsystems.join(', '));
+  const [errors, setErrors] = useState<Errors>({});
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    if (blockedReason) return setErrors({ form: blockedReason });
+    const parsed = setMemberBodySchema.safeParse({ role: role ?? undefined, subsystems: role === 'subsystem_owner' ? parseSubsystems(subsystems) : [] });
+    if (!parsed.success) {
+      const next: Errors = {};
+      for (const issue of parsed.error.issues) {
+        const field = issue.path[0] === 'role' ? 'role' : 'subsystems';
+        next[field] ??= field === 'role' ? 'choose a role' : issue.message;
+      }
+      return setErrors(next);
+    }
+    setErrors({});
+    setBusy(true);
+    try {
+      await onSubmit(parsed.data);
+    } catch (error) {
+      setErrors(errorsFrom(error));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <View style={styles.editor}>
+      {children}
+      <ChoiceChips label="Role" choices={roleChoices} value={role} onChange={setRole} testID={`${testID}-role`} />
+      {errors.role ? <AppText variant="error">{errors.role}</AppText> : null}
+      {role === 'subsystem_owner' ? (
+        <TextField
+          label="Subsystems (comma-separated)"
+          value={subsystems}
+          onChangeText={setSubsystems}
+          placeholder="Sail membrane, Booms"
+          error={errors.subsystems}
+          testID={`${testID}-subsystems`}
+        />
+      ) : null}
+      {errors.form ? (
+        <AppText variant="error" role="alert">
+          {errors.form}
+        </AppText>
+      ) : null}
+      <View style={styles.actions}>
+        <Button label={submitLabel} busy={busy} onPress={() => void submit()} testID={`${testID}-submit`} />
+        {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  editor: { gap: space.md },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});

@@ -1,0 +1,120 @@
+import { useQuery } from '@tanstack/react-query';
+import { StyleSheet, Switch, View } from 'react-native';
+import { useSessionUser } from '@/components/auth/queries';
+import { Badge } from '@/components/ui/badge';
+import { Card } from '@/components/ui/card';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { AppText } from '@/components/ui/text';
+import { colors, space } from '@/components/ui/theme';
+import type { Invitation, Person } from '@/shared/schemas/organisation';
+import { InviteForm } from './invite-form';
+import { organisationOptions, useSetOrgAdmin } from './queries';
+
+/** Organisation admins: the organisation's people, who is an admin, and invitations. */
+export function PeopleScreen() {
+  const organisation = useQuery(organisationOptions());
+  const isOrgAdmin = useSessionUser()?.isOrgAdmin ?? false;
+
+  if (!isOrgAdmin) {
+    return (
+      <Screen title="People">
+        <EmptyState title="For organisation admins" message="Only organisation admins manage people and invitations." />
+      </Screen>
+    );
+  }
+
+  return (
+    <Screen title="People" subtitle={organisation.data?.organisation.name}>
+      {organisation.isPending ? (
+        <LoadingState label="Loading people…" />
+      ) : organisation.isError ? (
+        <ErrorState title="Could not load the organisation" message={organisation.error.message} onRetry={() => void organisation.refetch()} />
+      ) : (
+        <>
+          <Card testID="people-list" style={styles.list}>
+            {organisation.data.people.length === 0 ? (
+              <EmptyState title="No people" message="Invite someone below." />
+            ) : (
+              organisation.data.people.map((person) => <PersonRow key={person.id} person={person} />)
+            )}
+          </Card>
+          <Card>
+            <AppText variant="title">Invite a person</AppText>
+            <InviteForm />
+          </Card>
+          <View style={styles.section}>
+            <AppText variant="title">Invitations</AppText>
+            {organisation.data.invitations.length === 0 ? (
+              <EmptyState title="No invitations" message="Invitations you send appear here." />
+            ) : (
+              <Card testID="invitation-list" style={styles.list}>
+                {organisation.data.invitations.map((invitation) => (
+                  <InvitationRow key={invitation.id} invitation={invitation} />
+                ))}
+              </Card>
+            )}
+          </View>
+        </>
+      )}
+    </Screen>
+  );
+}
+
+function PersonRow({ person }: { person: Person }) {
+  const setOrgAdmin = useSetOrgAdmin();
+  const label = `Organisation admin: ${person.name}`;
+  return (
+    <View style={styles.row} testID={`person-${person.id}`}>
+      <View style={styles.who}>
+        <AppText variant="heading">{person.name}</AppText>
+        <AppText variant="mono">{person.email}</AppText>
+        {setOrgAdmin.isError ? <AppText variant="error">{setOrgAdmin.error.message}</AppText> : null}
+      </View>
+      <View style={styles.toggle}>
+        <AppText variant="label">Admin</AppText>
+        <Switch
+          aria-label={label}
+          value={person.isOrgAdmin}
+          disabled={setOrgAdmin.isPending}
+          onValueChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
+          trackColor={{ true: colors.accent, false: colors.border }}
+          thumbColor={colors.surface}
+          testID={`person-${person.id}-admin`}
+        />
+      </View>
+    </View>
+  );
+}
+
+function InvitationRow({ invitation }: { invitation: Invitation }) {
+  return (
+    <View style={styles.row}>
+      <View style={styles.who}>
+        <AppText variant="heading">{invitation.name}</AppText>
+        <AppText variant="mono">{invitation.email}</AppText>
+        <AppText variant="muted">
+          Invited by {invitation.invitedBy} on <AppText variant="mono">{invitation.createdAt.slice(0, 10)}</AppText>
+        </AppText>
+      </View>
+      <Badge label={invitation.acceptedAt ? 'Accepted' : 'Waiting'} strong={invitation.acceptedAt === null} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { padding: 0, gap: 0 },
+  section: { gap: space.md },
+  row: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: space.md,
+    padding: space.lg,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.border,
+  },
+  who: { flexShrink: 1, gap: 2 },
+  toggle: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+});
