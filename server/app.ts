@@ -1,0 +1,76 @@
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Sequelize } from 'sequelize';
+import { createAuth } from './auth';
+import type { Config } from './env';
+import { apiNotFound, errorHandler } from './middleware/errors';
+import { requireUser } from './middleware/require-user';
+import { craftsRouter } from './routes/crafts';
+import { organisationRouter } from './routes/organisation';
+import type { Mailer } from './services/mailer';
+
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+  mailer: Mailer;
+}
+
+/** Builds the Express app: API under /api, the exported web app for everything else. Never listens. */
+export function createApp(deps: AppDeps): Express {
+  const { config } = deps;
+  const app = express();
+  app.set('trust proxy', config.trustProxy);
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // react-native-web injects style elements; Expo's single-page export has an inline bootstrap.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'script-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'form-action': ["'self'", config.sso.issuer, new URL(config.google.authorizationUrl).origin],
+          'upgrade-insecure-requests': config.secureCookies ? [] : null,
+        },
+      },
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+
+  const auth = createAuth({ config, sequelize: deps.sequelize });
+  app.use(auth.session);
+
+  // GET /api/health: anyone; 200 when the database answers.
+  app.get('/api/health', async (_req, res) => {
+    await deps.sequelize.query('SELECT 1');
+    res.json({ status: 'ok' });
+  });
+  app.use('/api', auth.csrfProtection);
+  app.use('/api/auth', auth.router);
+  app.use('/api/crafts', requireUser, craftsRouter(deps));
+  app.use('/api/organisation', requireUser, organisationRouter(deps));
+  app.use('/api', apiNotFound);
+
+  serveWebApp(app, config.webDist);
+  app.use(errorHandler);
+  return app;
+}
+
+/** Serves the exported web app; client routes fall back to its index.html. */
+function serveWebApp(app: Express, webDist: string) {
+  const indexHtml = path.join(webDist, 'index.html');
+  app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+  app.get('/{*splat}', (_req, res) => {
+    if (!fs.existsSync(indexHtml)) {
+      res.status(503).type('text').send('The web app is not built yet: run `npm start`, which builds it.');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+}

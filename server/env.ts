@@ -1,0 +1,125 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+/** Development-only secrets: refused when NODE_ENV=production. */
+const DEV_SECRET = 'trimsheet-development-secret-not-for-production';
+
+const envSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    HOST: z.string().default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(1).max(65535).default(8080),
+    PUBLIC_URL: z.url().optional(),
+    TRUST_PROXY: z.string().default('loopback'),
+    DATABASE_URL: z.string().default('postgres://trimsheet@127.0.0.1:5433/trimsheet'),
+    DATABASE_POOL_MAX: z.coerce.number().int().min(1).default(10),
+    SESSION_SECRET: z.string().min(16).default(DEV_SECRET),
+    SESSION_COOKIE_NAME: z.string().default('trimsheet.sid'),
+    SESSION_MAX_AGE_HOURS: z.coerce.number().positive().default(12),
+    WEB_DIST: z.string().default(path.resolve(__dirname, '..', 'dist')),
+    OIDC_ISSUER: z.url().default('http://127.0.0.1:8090'),
+    OIDC_CLIENT_ID: z.string().default('trimsheet-sso'),
+    OIDC_CLIENT_SECRET: z.string().default('trimsheet-sso-secret'),
+    OIDC_ALLOW_HTTP: z.enum(['true', 'false']).optional(),
+    GOOGLE_CLIENT_ID: z.string().default('trimsheet-google'),
+    GOOGLE_CLIENT_SECRET: z.string().default('trimsheet-google-secret'),
+    GOOGLE_AUTHORIZATION_URL: z.url().default('http://127.0.0.1:8090/auth'),
+    GOOGLE_TOKEN_URL: z.url().default('http://127.0.0.1:8090/token'),
+    GOOGLE_USERINFO_URL: z.url().default('http://127.0.0.1:8090/me/userinfo'),
+    SMTP_HOST: z.string().default('127.0.0.1'),
+    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+    SMTP_SECURE: z.enum(['true', 'false']).default('false'),
+    SMTP_IGNORE_TLS: z.enum(['true', 'false']).optional(),
+    SMTP_USER: z.string().optional(),
+    SMTP_PASS: z.string().optional(),
+    MAIL_FROM: z.string().default('Trimsheet <trimsheet@corvid-sailworks.example>'),
+    SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === 'production' && env.SESSION_SECRET === DEV_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'set a real SESSION_SECRET in production' });
+    }
+  });
+
+/** The parsed configuration; everything else takes it from here instead of reading process.env. */
+export type Config = ReturnType<typeof toConfig>;
+
+function toConfig(env: z.infer<typeof envSchema>) {
+  const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`;
+  const isLoopbackHttp = (url: string) => /^http:\/\/(127\.0\.0\.1|localhost|\[::1\])(:|\/|$)/.test(url);
+  return {
+    nodeEnv: env.NODE_ENV,
+    host: env.HOST,
+    port: env.PORT,
+    publicUrl,
+    secureCookies: publicUrl.startsWith('https://'),
+    trustProxy: env.TRUST_PROXY,
+    databaseUrl: env.DATABASE_URL,
+    databasePoolMax: env.DATABASE_POOL_MAX,
+    session: { secret: env.SESSION_SECRET, cookieName: env.SESSION_COOKIE_NAME, maxAgeMs: env.SESSION_MAX_AGE_HOURS * 3600_000 },
+    webDist: env.WEB_DIST,
+    sso: {
+      issuer: env.OIDC_ISSUER,
+      clientId: env.OIDC_CLIENT_ID,
+      clientSecret: env.OIDC_CLIENT_SECRET,
+      allowHttp: env.OIDC_ALLOW_HTTP ? env.OIDC_ALLOW_HTTP === 'true' : isLoopbackHttp(env.OIDC_ISSUER),
+    },
+    google: {
+      clientId: env.GOOGLE_CLIENT_ID,
+      clientSecret: env.GOOGLE_CLIENT_SECRET,
+      authorizationUrl: env.GOOGLE_AUTHORIZATION_URL,
+      tokenUrl: env.GOOGLE_TOKEN_URL,
+      userInfoUrl: env.GOOGLE_USERINFO_URL,
+    },
+    smtp: {
+      host: env.SMTP_HOST,
+      port: env.SMTP_PORT,
+      secure: env.SMTP_SECURE === 'true',
+      ignoreTls: env.SMTP_IGNORE_TLS ? env.SMTP_IGNORE_TLS === 'true' : env.SMTP_HOST === '127.0.0.1',
+      user: env.SMTP_USER,
+      pass: env.SMTP_PASS,
+      from: env.MAIL_FROM,
+    },
+    signInRateLimit: env.SIGN_IN_RATE_LIMIT,
+  };
+}
+
+/** Parses an environment (process.env by default) into the typed configuration, or throws naming each bad variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`).join('; ');
+    throw new Error(`Invalid environment: ${problems}`);
+  }
+  return toConfig(parsed.data);
+}
+
+const stackEnvSchema = z.object({
+  PORT: z.coerce.number().int().min(1).max(65535).default(8080),
+  TRIMSHEET_PG_PORT: z.coerce.number().int().min(1).max(65535).default(5433),
+  TRIMSHEET_OIDC_PORT: z.coerce.number().int().min(1).max(65535).default(8090),
+  TRIMSHEET_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  TRIMSHEET_INBOX_PORT: z.coerce.number().int().min(1).max(65535).default(8025),
+  TRIMSHEET_TEST_PORT: z.coerce.number().int().min(1).max(65535).default(8181),
+  TRIMSHEET_TEST_PG_PORT: z.coerce.number().int().min(1).max(65535).default(5434),
+  TRIMSHEET_TEST_OIDC_PORT: z.coerce.number().int().min(1).max(65535).default(8190),
+  TRIMSHEET_TEST_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2625),
+  TRIMSHEET_TEST_INBOX_PORT: z.coerce.number().int().min(1).max(65535).default(8125),
+  TRIMSHEET_DATA_DIR: z.string().default(path.resolve(__dirname, '..', '.data')),
+  TRIMSHEET_SKIP_BUILD: z.enum(['0', '1']).default('0'),
+});
+
+/** Settings of the local stack that `npm start` and `npm test` run (ports of the fakes, data folder). */
+export type StackConfig = z.infer<typeof stackEnvSchema>;
+
+/** Parses the local stack's settings; used only by server/dev. */
+export function loadStackConfig(env: NodeJS.ProcessEnv = process.env): StackConfig {
+  const parsed = stackEnvSchema.safeParse(env);
+  if (!parsed.success) throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
+  return parsed.data;
+}
+
+/** The process environment, for dev tools that pass it on to child processes. */
+export function inheritedEnvironment(): NodeJS.ProcessEnv {
+  return { ...process.env };
+}

@@ -1,0 +1,30 @@
+import { createDatabase } from './db';
+import { loadConfig } from './env';
+import { createApp } from './app';
+import { createMailer } from './services/mailer';
+
+/** Production entry point: connect, listen, and shut down cleanly on SIGTERM or SIGINT. */
+async function main() {
+  const config = loadConfig();
+  const sequelize = createDatabase(config);
+  await sequelize.authenticate();
+  const mailer = createMailer(config.smtp);
+  const app = createApp({ config, sequelize, mailer });
+  const server = app.listen(config.port, config.host, () => {
+    console.log(`[trimsheet] serving ${config.publicUrl}`);
+  });
+  const shutdown = () => {
+    server.close(() => {
+      mailer.close();
+      void sequelize.close().then(() => process.exit(0));
+    });
+    setTimeout(() => process.exit(0), 5000);
+  };
+  process.on('SIGTERM', shutdown);
+  process.on('SIGINT', shutdown);
+}
+
+main().catch((error: unknown) => {
+  console.error('[trimsheet] could not start:', error);
+  process.exit(1);
+});

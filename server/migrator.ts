@@ -1,0 +1,18 @@
+import type { QueryInterface, Sequelize } from 'sequelize';
+import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
+import * as foundation from './migrations/0001-foundation';
+
+export type Migration = MigrationFn<QueryInterface>;
+
+/** Migrations in order; add a new file under migrations/ and list it here. */
+const migrations = [{ name: '0001-foundation', ...foundation }];
+
+/** An umzug migrator over the given connection, recording applied migrations in the SequelizeMeta table. */
+export function createMigrator(sequelize: Sequelize) {
+  return new Umzug({
+    migrations,
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize }),
+    logger: undefined,
+  });
+}

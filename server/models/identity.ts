@@ -1,0 +1,33 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+import type { User } from './user';
+
+/** One way a person signs in: a provider ('google' or 'sso') and that provider's subject identifier. */
+export class Identity extends Model<InferAttributes<Identity>, InferCreationAttributes<Identity>> {
+  declare id: CreationOptional<string>;
+  declare userId: ForeignKey<User['id']>;
+  declare provider: 'google' | 'sso';
+  declare subject: string;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Identity.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        provider: { type: DataTypes.TEXT, allowNull: false },
+        subject: { type: DataTypes.TEXT, allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'identities' },
+    );
+  }
+}

@@ -1,0 +1,28 @@
+import type { Sequelize } from 'sequelize';
+import { Craft } from './craft';
+import { Identity } from './identity';
+import { Invitation } from './invitation';
+import { Membership } from './membership';
+import { Organisation } from './organisation';
+import { User } from './user';
+
+export { Craft, Identity, Invitation, Membership, Organisation, User };
+
+/** Registers every model on the connection and sets up all associations, in this one place. */
+export function initModels(sequelize: Sequelize): void {
+  for (const model of [Organisation, User, Identity, Craft, Membership, Invitation]) model.initModel(sequelize);
+
+  Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' });
+  User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' });
+  User.hasMany(Identity, { foreignKey: 'userId', as: 'identities' });
+  Identity.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Organisation.hasMany(Craft, { foreignKey: 'organisationId', as: 'crafts' });
+  Craft.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' });
+  Craft.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Craft.hasMany(Membership, { foreignKey: 'craftId', as: 'memberships' });
+  Membership.belongsTo(Craft, { foreignKey: 'craftId', as: 'craft' });
+  User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
+  Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Organisation.hasMany(Invitation, { foreignKey: 'organisationId', as: 'invitations' });
+  Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
+}

@@ -1,0 +1,39 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
+import type { Organisation } from './organisation';
+import type { User } from './user';
+
+/** An organisation admin's invitation; it is accepted when a person with that e-mail first signs in. */
+export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
+  declare id: CreationOptional<string>;
+  declare organisationId: ForeignKey<Organisation['id']>;
+  declare invitedById: ForeignKey<User['id']>;
+  declare email: string;
+  declare name: string;
+  declare acceptedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare invitedBy?: NonAttribute<User>;
+
+  static initModel(sequelize: Sequelize) {
+    Invitation.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        email: { type: DataTypes.TEXT, allowNull: false },
+        name: { type: DataTypes.TEXT, allowNull: false },
+        acceptedAt: { type: DataTypes.DATE, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'invitations' },
+    );
+  }
+}

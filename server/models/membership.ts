@@ -1,0 +1,39 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
+import { craftRoles, type CraftRole } from '@/shared/schemas/roles';
+import type { Craft } from './craft';
+import type { User } from './user';
+
+/** A person's role on one craft; subsystem owners also list the subsystems whose rows they own. */
+export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
+  declare id: CreationOptional<string>;
+  declare craftId: ForeignKey<Craft['id']>;
+  declare userId: ForeignKey<User['id']>;
+  declare role: CraftRole;
+  declare subsystems: CreationOptional<string[]>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare user?: NonAttribute<User>;
+  declare craft?: NonAttribute<Craft>;
+
+  static initModel(sequelize: Sequelize) {
+    Membership.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        role: { type: DataTypes.TEXT, allowNull: false, validate: { isIn: [craftRoles as readonly string[] as string[]] } },
+        subsystems: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'memberships' },
+    );
+  }
+}

@@ -1,0 +1,28 @@
+import { Router } from 'express';
+import { inviteBodySchema, personParamsSchema, setOrgAdminBodySchema } from '@/shared/schemas/organisation';
+import type { AppDeps } from '../app';
+import { currentUser, requireOrgAdmin } from '../middleware/require-user';
+import { validate } from '../middleware/validate';
+import { getOrganisation, invitePerson, setOrgAdmin } from '../services/organisation';
+
+/** Routes under /api/organisation; every one needs a signed-in person (mounted behind requireUser). */
+export function organisationRouter({ sequelize, mailer, config }: AppDeps): Router {
+  const router = Router();
+
+  // GET /api/organisation: any signed-in person; their organisation and its people (invitations for admins).
+  router.get('/', async (req, res) => {
+    res.json(await getOrganisation(currentUser(req)));
+  });
+
+  // POST /api/organisation/invitations: organisation admins; 400, 403, 409 already_a_person, 502 mail_not_sent.
+  router.post('/invitations', requireOrgAdmin, validate({ body: inviteBodySchema }), async (req, res) => {
+    res.status(201).json(await invitePerson(sequelize, mailer, config.publicUrl, currentUser(req), req.body));
+  });
+
+  // PUT /api/organisation/people/:userId/admin: organisation admins; 400, 403, 404, 409 last_admin.
+  router.put('/people/:userId/admin', requireOrgAdmin, validate({ params: personParamsSchema, body: setOrgAdminBodySchema }), async (req, res) => {
+    res.json(await setOrgAdmin(currentUser(req), req.params.userId, req.body.isOrgAdmin));
+  });
+
+  return router;
+}

@@ -1,0 +1,40 @@
+import type { CraftRole } from '@/shared/schemas/roles';
+
+/**
+ * The demo scenario, invented for Trimsheet: Corvid Sailworks builds "Tern", a small solar-sail
+ * technology demonstrator. Pelagic Orbital is a second, unrelated organisation whose person must never
+ * see Corvid's data. The sign-in fake offers exactly these people.
+ */
+export interface DemoPerson {
+  /** Stable subject identifier at the sign-in fake. */
+  subject: string;
+  email: string;
+  name: string;
+  organisation: 'corvid' | 'pelagic';
+  isOrgAdmin: boolean;
+  /** Role on the organisation's demo craft, if any. */
+  craftRole: CraftRole | null;
+  subsystems?: string[];
+  /** What the person does, shown on the fake's login page. */
+  title: string;
+}
+
+export const demoOrganisations = {
+  corvid: { slug: 'corvid-sailworks', name: 'Corvid Sailworks' },
+  pelagic: { slug: 'pelagic-orbital', name: 'Pelagic Orbital' },
+} as const;
+
+export const demoCrafts = {
+  corvid: { name: 'Tern', description: 'Square-sail technology demonstrator on a 12U bus, four diagonal booms.' },
+  pelagic: { name: 'Skerry', description: 'Drag sail for end-of-life deorbit of a 50 kg satellite.' },
+} as const;
+
+export const demoPeople: DemoPerson[] = [
+  { subject: 'demo-ines', email: 'ines.marlowe@corvid-sailworks.example', name: 'Ines Marlowe', organisation: 'corvid', isOrgAdmin: true, craftRole: null, title: 'Organisation admin' },
+  { subject: 'demo-tomas', email: 'tomas.reyes@corvid-sailworks.example', name: 'Tomás Reyes', organisation: 'corvid', isOrgAdmin: false, craftRole: 'chief_engineer', title: 'Chief engineer' },
+  { subject: 'demo-amara', email: 'amara.osei@corvid-sailworks.example', name: 'Amara Osei', organisation: 'corvid', isOrgAdmin: false, craftRole: 'systems_engineer', title: 'Systems engineer' },
+  { subject: 'demo-kenji', email: 'kenji.hollis@corvid-sailworks.example', name: 'Kenji Hollis', organisation: 'corvid', isOrgAdmin: false, craftRole: 'subsystem_owner', subsystems: ['Booms', 'Deployer'], title: 'Subsystem owner (booms, deployer)' },
+  { subject: 'demo-lucia', email: 'lucia.brandt@corvid-sailworks.example', name: 'Lucia Brandt', organisation: 'corvid', isOrgAdmin: false, craftRole: 'partner', title: 'Partner (film supplier)' },
+  { subject: 'demo-oren', email: 'oren.vasquez@corvid-sailworks.example', name: 'Oren Vasquez', organisation: 'corvid', isOrgAdmin: false, craftRole: 'viewer', title: 'Viewer' },
+  { subject: 'demo-priya', email: 'priya.lund@pelagic-orbital.example', name: 'Priya Lund', organisation: 'pelagic', isOrgAdmin: true, craftRole: 'chief_engineer', title: 'Another organisation (admin and chief engineer)' },
+];
