@@ -2,7 +2,7 @@ import { ExportedCellChange, type HyperFormula, type RawCellContent } from 'hype
 import type { Parameter, Sheet } from '@/shared/schemas/sheet';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import { buildWorkbook, cellContent, readCell } from '@/shared/engine/hyperformula-cells';
-import { analyseRow, buildGraph, type AnalysedRow, type DependencyGraph, type RowContext } from '@/shared/engine/sheet-model';
+import { analyseSheet, buildGraph, reanalyseRow, rowStates, type AnalysedRow, type SheetAnalysis } from '@/shared/engine/sheet-model';
 import { formatDimension, fromSI, parseQuantity, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
 
 /** A row's result in its declared unit. */
@@ -77,72 +77,37 @@ function sameList(a: readonly string[], b: readonly string[]): boolean {
 class Session implements SheetSession {
   private readonly name: string;
   private readonly budget: Sheet['budget'];
-  private readonly parameters: Parameter[];
-  private readonly rows: AnalysedRow[];
-  private readonly indexOf = new Map<string, number>();
-  private readonly duplicates: ReadonlyMap<number, EngineError>;
-  private graph: DependencyGraph;
+  private readonly analysis: SheetAnalysis;
   private readonly contents: Array<readonly [RawCellContent, RawCellContent]>;
   private readonly workbook: HyperFormula;
   private readonly results: Array<number | EngineError>;
   private readonly undoStack: Edit[] = [];
   private readonly redoStack: Edit[] = [];
-  private readonly context: RowContext;
 
   constructor(sheet: Sheet) {
     this.name = sheet.name;
     this.budget = sheet.budget;
-    const duplicates = new Map<number, EngineError>();
-    sheet.parameters.forEach((parameter, index) => {
-      if (this.indexOf.has(parameter.key)) {
-        duplicates.set(index, rowError(parameter.key, 'duplicate_key', `key is used by more than one row (row ${index + 1})`));
-      } else {
-        this.indexOf.set(parameter.key, index);
-      }
-    });
-    this.duplicates = duplicates;
-    this.context = {
-      budget: this.budget,
-      parameterOf: (key) => {
-        const index = this.indexOf.get(key);
-        return index === undefined ? undefined : this.parameters[index];
-      },
-    };
-    this.parameters = [...sheet.parameters];
-    this.rows = this.parameters.map((parameter) => analyseRow(parameter, this.context));
-    this.graph = buildGraph(this.rows, this.indexOf);
-    this.contents = this.rows.map((_, index) => this.contentOf(index));
+    this.analysis = analyseSheet(sheet);
+    this.contents = this.analysis.rows.map((_, index) => this.contentOf(index));
     this.workbook = buildWorkbook(this.contents);
     const initial = this.workbook.getSheetValues(0);
-    this.results = this.rows.map((row, index) => readCell(row.parameter.key, initial[index]?.[0] ?? null));
+    this.results = this.analysis.rows.map((row, index) => readCell(row.parameter.key, initial[index]?.[0] ?? null));
   }
 
-  private readonly cellIndex = (key: string): number => this.indexOf.get(key) ?? -1;
+  private get rows(): readonly AnalysedRow[] {
+    return this.analysis.rows;
+  }
+
+  private readonly cellIndex = (key: string): number => this.analysis.indexOf.get(key) ?? -1;
 
   private contentOf(index: number): readonly [RawCellContent, RawCellContent] {
     const row = this.rows[index];
-    if (row === undefined || this.duplicates.has(index)) return [null, null];
-    return [cellContent(row, this.graph.cycles.has(index), this.cellIndex), row.allowance ?? null];
+    if (row === undefined) return [null, null];
+    return [cellContent(row, this.analysis.graph.cycles.has(index), this.cellIndex), row.allowance ?? null];
   }
 
   private states(): Array<EngineError | undefined> {
-    const states: Array<EngineError | undefined> = this.rows.map(() => undefined);
-    for (const index of this.graph.order) {
-      const row = this.rows[index];
-      if (row === undefined) continue;
-      const key = row.parameter.key;
-      const cycle = this.graph.cycles.get(index);
-      const failedDependency = (this.graph.dependencies[index] ?? []).find((dependency) => states[dependency] !== undefined);
-      const result = this.results[index];
-      if (this.duplicates.has(index)) states[index] = this.duplicates.get(index);
-      else if (row.error !== undefined) states[index] = row.error;
-      else if (cycle !== undefined) states[index] = rowError(key, 'cycle', `is on a cycle of formulas: ${[...cycle, cycle[0]].join(' -> ')}`);
-      else if (failedDependency !== undefined) {
-        const upstream = this.rows[failedDependency]?.parameter.key ?? '';
-        states[index] = rowError(key, 'dependency_error', `depends on ${upstream}, which has an error`);
-      } else if (typeof result !== 'number') states[index] = result;
-    }
-    return states;
+    return rowStates(this.analysis, (index) => this.results[index]);
   }
 
   values(): Record<string, EvaluatedValue> {
@@ -168,7 +133,7 @@ class Session implements SheetSession {
   }
 
   private editable(key: string): { ok: true; index: number; parameter: Parameter } | { ok: false; error: EngineError } {
-    const index = this.indexOf.get(key);
+    const index = this.analysis.indexOf.get(key);
     const parameter = index === undefined ? undefined : this.rows[index]?.parameter;
     if (index === undefined || parameter === undefined) return { ok: false, error: rowError(key, 'unknown_key', 'no row has this key') };
     if (parameter.protected === true) return { ok: false, error: rowError(key, 'protected', 'the row is protected and cannot be edited') };
@@ -234,20 +199,17 @@ class Session implements SheetSession {
   private apply(index: number, parameter: Parameter): EditResult {
     const old = this.rows[index];
     if (old === undefined) return { ok: false, error: rowError(parameter.key, 'unknown_key', 'no row has this key') };
-    this.parameters[index] = parameter;
-    const next = analyseRow(parameter, this.context);
-    this.rows[index] = next;
+    this.analysis.parameters[index] = parameter;
+    reanalyseRow(this.analysis, index);
     const touched = new Set<number>([index]);
     if (old.parameter.unit !== parameter.unit || !sameMass(old.parameter.mass, parameter.mass)) {
-      for (const dependent of this.graph.dependents[index] ?? []) {
-        const row = this.rows[dependent];
-        if (row === undefined) continue;
-        this.rows[dependent] = analyseRow(row.parameter, this.context);
+      for (const dependent of this.analysis.graph.dependents[index] ?? []) {
+        reanalyseRow(this.analysis, dependent);
         touched.add(dependent);
       }
     }
-    const graphChanged = !sameList(old.dependencies, next.dependencies);
-    if (graphChanged) this.graph = buildGraph(this.rows, this.indexOf);
+    const graphChanged = !sameList(old.dependencies, this.rows[index]?.dependencies ?? []);
+    if (graphChanged) this.analysis.graph = buildGraph(this.rows, this.analysis.indexOf);
     const candidates = graphChanged ? this.rows.map((_, row) => row) : [...touched];
     const changes = this.workbook.batch(() => {
       for (const candidate of candidates) {

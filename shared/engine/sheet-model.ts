@@ -305,3 +305,97 @@ export function buildGraph(rows: readonly AnalysedRow[], indexOf: ReadonlyMap<st
   }
   return { dependencies, dependents, cycles, order };
 }
+
+/** A whole sheet analysed: rows in sheet order, where each key is, and the dependency graph. */
+export interface SheetAnalysis {
+  readonly parameters: Parameter[];
+  readonly rows: AnalysedRow[];
+  readonly indexOf: ReadonlyMap<string, number>;
+  graph: DependencyGraph;
+  readonly context: RowContext;
+  /** Rows whose key an earlier row already uses. */
+  readonly duplicates: ReadonlySet<number>;
+}
+
+/** (Re-)analyses the row at `index` from `analysis.parameters[index]`. */
+export function reanalyseRow(analysis: SheetAnalysis, index: number): void {
+  const parameter = analysis.parameters[index];
+  if (parameter === undefined) return;
+  const row = analyseRow(parameter, analysis.context);
+  analysis.rows[index] = analysis.duplicates.has(index)
+    ? { ...row, error: rowError(parameter.key, 'duplicate_key', `key is used by more than one row (row ${index + 1})`) }
+    : row;
+}
+
+/** Analyses every row of a sheet and builds its dependency graph. */
+export function analyseSheet(sheet: Sheet): SheetAnalysis {
+  const indexOf = new Map<string, number>();
+  const duplicates = new Set<number>();
+  sheet.parameters.forEach((parameter, index) => {
+    if (indexOf.has(parameter.key)) duplicates.add(index);
+    else indexOf.set(parameter.key, index);
+  });
+  const parameters = [...sheet.parameters];
+  const context: RowContext = {
+    budget: sheet.budget,
+    parameterOf: (key) => {
+      const index = indexOf.get(key);
+      return index === undefined ? undefined : parameters[index];
+    },
+  };
+  const analysis: SheetAnalysis = { parameters, rows: [], indexOf, graph: buildGraph([], indexOf), context, duplicates };
+  parameters.forEach((_, index) => reanalyseRow(analysis, index));
+  analysis.graph = buildGraph(analysis.rows, indexOf);
+  return analysis;
+}
+
+/** The shortest cycle of references from a row back to itself, as keys ("a -> b -> a": a refers to b). */
+function cyclePath(analysis: SheetAnalysis, start: number, component: readonly string[]): string[] {
+  const members = new Set(component);
+  const { rows, graph } = analysis;
+  const keyAt = (index: number): string => rows[index]?.parameter.key ?? '';
+  const parent = new Map<number, number>();
+  const queue = [start];
+  for (let head = 0; head < queue.length; head += 1) {
+    const current = queue[head] ?? start;
+    for (const next of graph.dependencies[current] ?? []) {
+      if (!members.has(keyAt(next))) continue;
+      if (next === start) {
+        const chain: number[] = [];
+        for (let step: number | undefined = current; step !== undefined && step !== start; step = parent.get(step)) chain.push(step);
+        return [start, ...chain.reverse(), start].map(keyAt);
+      }
+      if (parent.has(next)) continue;
+      parent.set(next, current);
+      queue.push(next);
+    }
+  }
+  return [...component, keyAt(start)];
+}
+
+/**
+ * Each row's error, in sheet order: its own, its cycle, a dependency's, or (from `result`) one found
+ * while evaluating it. Undefined for a row that has a value.
+ */
+export function rowStates(
+  analysis: SheetAnalysis,
+  result: (index: number) => number | EngineError | undefined,
+): Array<EngineError | undefined> {
+  const { rows, graph } = analysis;
+  const states: Array<EngineError | undefined> = rows.map(() => undefined);
+  for (const index of graph.order) {
+    const row = rows[index];
+    if (row === undefined) continue;
+    const key = row.parameter.key;
+    const cycle = graph.cycles.get(index);
+    const failedDependency = (graph.dependencies[index] ?? []).find((dependency) => states[dependency] !== undefined);
+    const value = result(index);
+    if (row.error !== undefined) states[index] = row.error;
+    else if (cycle !== undefined) states[index] = rowError(key, 'cycle', `is on a cycle of formulas: ${cyclePath(analysis, index, cycle).join(' -> ')}`);
+    else if (failedDependency !== undefined) {
+      const upstream = rows[failedDependency]?.parameter.key ?? '';
+      states[index] = rowError(key, 'dependency_error', `depends on ${upstream}, which has an error`);
+    } else if (typeof value === 'object') states[index] = value;
+  }
+  return states;
+}

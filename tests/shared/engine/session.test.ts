@@ -1,0 +1,97 @@
+import type { Sheet } from '@/shared/schemas/sheet';
+import { createSheetSession, type SheetSession } from '@/shared/engine/session';
+
+const sheet: Sheet = {
+  name: 'session test',
+  parameters: [
+    { key: 'side', label: 'side', subsystem: 's', unit: 'm', value: 10 },
+    { key: 'thickness', label: 'thickness', subsystem: 's', unit: 'um', value: 2 },
+    { key: 'area', label: 'area', subsystem: 's', unit: 'm^2', formula: '=side^2' },
+    { key: 'volume', label: 'volume', subsystem: 's', unit: 'cm^3', formula: '=area * thickness' },
+    { key: 'unrelated', label: 'unrelated', subsystem: 's', unit: 'kg', value: 3 },
+    { key: 'double_mass', label: 'double', subsystem: 's', unit: 'kg', formula: '=2 * unrelated' },
+    { key: 'constant', label: 'constant', subsystem: 'Constants', unit: 'm/s', value: 299_792_458, protected: true },
+  ],
+};
+
+let session: SheetSession;
+beforeEach(() => {
+  session = createSheetSession(sheet);
+});
+afterEach(() => session.destroy());
+
+describe('createSheetSession', () => {
+  it('recomputes only the dependents of an edited input', () => {
+    const result = session.setInput('side', 20);
+    expect(result).toEqual({ ok: true, recomputed: ['side', 'area', 'volume'] });
+    expect(session.values().area?.value).toBeCloseTo(400, 12);
+    expect(session.setInput('unrelated', 4)).toEqual({ ok: true, recomputed: ['unrelated', 'double_mass'] });
+  });
+
+  it('accepts a value with its own unit and converts it', () => {
+    session.setInput('side', '2 km');
+    expect(session.values().side).toEqual({ value: 2000, unit: 'm' });
+    expect(session.values().area?.value).toBeCloseTo(4e6, 6);
+  });
+
+  it('refuses bad values and protected rows without changing anything', () => {
+    expect(session.setInput('side', '3 kg')).toMatchObject({ ok: false, error: { key: 'side', code: 'dimension_mismatch' } });
+    expect(session.setInput('side', Number.NaN)).toMatchObject({ ok: false, error: { key: 'side', code: 'invalid_value' } });
+    expect(session.setInput('side', 'ten')).toMatchObject({ ok: false, error: { key: 'side', code: 'invalid_value' } });
+    expect(session.setInput('constant', 1)).toMatchObject({ ok: false, error: { key: 'constant', code: 'protected' } });
+    expect(session.setInput('nothing', 1)).toMatchObject({ ok: false, error: { key: 'nothing', code: 'unknown_key' } });
+    expect(session.canUndo()).toBe(false);
+    expect(session.values().side?.value).toBe(10);
+  });
+
+  it('undoes and redoes edits', () => {
+    session.setInput('side', 20);
+    session.setFormula('area', '=side * side * 3');
+    expect(session.values().area?.value).toBeCloseTo(1200, 12);
+    expect(session.undo()).toMatchObject({ ok: true });
+    expect(session.values().area?.value).toBeCloseTo(400, 12);
+    expect(session.undo()).toMatchObject({ ok: true });
+    expect(session.values().area?.value).toBeCloseTo(100, 12);
+    expect(session.undo()).toBe(false);
+    expect(session.redo()).toMatchObject({ ok: true });
+    expect(session.values().side?.value).toBe(20);
+    session.setInput('side', 5);
+    expect(session.canRedo()).toBe(false);
+    expect(session.redo()).toBe(false);
+    expect(session.sheet().parameters.find((parameter) => parameter.key === 'side')?.value).toBe(5);
+  });
+
+  it('reports a cycle made by an edit, and clears it on undo', () => {
+    session.setFormula('side', '=SQRT(volume / thickness)');
+    expect(session.errors().map((error) => [error.key, error.code])).toEqual([
+      ['side', 'cycle'],
+      ['area', 'cycle'],
+      ['volume', 'cycle'],
+    ]);
+    expect(session.errors()[0]?.message).toBe('side: is on a cycle of formulas: side -> volume -> area -> side');
+    expect(session.values().double_mass?.value).toBe(6);
+    session.undo();
+    expect(session.errors()).toEqual([]);
+    expect(session.values().volume?.value).toBeCloseTo(200, 9);
+  });
+
+  it('re-checks the rows that read a row whose unit changes', () => {
+    const side = sheet.parameters[0];
+    if (side === undefined) throw new Error('fixture');
+    session.updateParameter('side', { ...side, unit: 'kg' });
+    expect(session.errors()).toEqual([
+      { key: 'area', code: 'dimension_mismatch', message: 'area: unit "m^2" expects m^2 but the formula gives kg^2' },
+      { key: 'volume', code: 'dependency_error', message: 'volume: depends on area, which has an error' },
+    ]);
+    session.undo();
+    expect(session.errors()).toEqual([]);
+  });
+
+  it('keeps a broken formula as an error of its row and recovers when it is fixed', () => {
+    session.setFormula('area', '=side ^');
+    expect(session.errors().map((error) => error.code)).toEqual(['syntax_error', 'dependency_error']);
+    session.setFormula('area', '=side * side');
+    expect(session.errors()).toEqual([]);
+    expect(session.values().volume?.value).toBeCloseTo(200, 9);
+  });
+});
