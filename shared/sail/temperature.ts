@@ -3,9 +3,10 @@ import { checkOptics, type OpticalCoefficients } from '@/shared/sail/optics';
 import { solarIrradiance } from '@/shared/sail/radiation-pressure';
 import { requireInRange, requirePositive } from '@/shared/sail/validate';
 
-/** Cone angles the equilibrium formula accepts: the sun must light the front, [0, π/2) rad. */
+/** Cone angles the equilibrium formula accepts: the sun must light the front, (−π/2, π/2) rad. */
 function checkLitConeAngle(where: string, coneAngle: number): number {
-  return requireInRange(where, 'coneAngle', Math.abs(coneAngle), 0, Math.PI / 2, { maxExclusive: true, unit: 'rad' });
+  const limit = Math.PI / 2;
+  return requireInRange(where, 'coneAngle', coneAngle, -limit, limit, { minExclusive: true, maxExclusive: true, unit: 'rad' });
 }
 
 /** (1 − r) cos α / (σ_SB (ε_f + ε_b)): absorbed over emitted per unit irradiance, m^2 K^4 / W. */

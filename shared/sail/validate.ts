@@ -3,14 +3,14 @@
  * parameter, the function it was given to, and the value received.
  */
 
-function describe(value: number): string {
+function shown(value: number): string {
   return Number.isNaN(value) ? 'NaN' : String(value);
 }
 
 /** Throws unless `value` is a finite number. Returns the value. */
 export function requireFinite(where: string, name: string, value: number): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new RangeError(`${where}: ${name} must be a finite number, got ${describe(value)}`);
+    throw new RangeError(`${where}: ${name} must be a finite number, got ${shown(value)}`);
   }
   return value;
 }
@@ -18,14 +18,14 @@ export function requireFinite(where: string, name: string, value: number): numbe
 /** Throws unless `value` is finite and > 0. Returns the value. */
 export function requirePositive(where: string, name: string, value: number): number {
   requireFinite(where, name, value);
-  if (value <= 0) throw new RangeError(`${where}: ${name} must be greater than 0, got ${describe(value)}`);
+  if (value <= 0) throw new RangeError(`${where}: ${name} must be greater than 0, got ${shown(value)}`);
   return value;
 }
 
 /** Throws unless `value` is finite and >= 0. Returns the value. */
 export function requireNonNegative(where: string, name: string, value: number): number {
   requireFinite(where, name, value);
-  if (value < 0) throw new RangeError(`${where}: ${name} must not be negative, got ${describe(value)}`);
+  if (value < 0) throw new RangeError(`${where}: ${name} must not be negative, got ${shown(value)}`);
   return value;
 }
 
@@ -49,7 +49,7 @@ export function requireInRange(
     const open = options.minExclusive ? '(' : '[';
     const close = options.maxExclusive ? ')' : ']';
     throw new RangeError(
-      `${where}: ${name} must be in ${open}${min}, ${max}${close}${unit}, got ${describe(value)}${unit}`,
+      `${where}: ${name} must be in ${open}${min}, ${max}${close}${unit}, got ${shown(value)}${unit}`,
     );
   }
   return value;
