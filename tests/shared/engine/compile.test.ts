@@ -1,5 +1,5 @@
 import { evaluateCompiled } from '@/shared/engine/compile';
-import { evaluateSheet, type Evaluation } from '@/shared/engine/evaluate';
+import { evaluateSheet, type Evaluation, type Overrides } from '@/shared/engine/evaluate';
 import { squareSailTemplate } from '@/shared/templates';
 import { syntheticSheet } from '@/tests/bench/synthetic-sheet';
 
@@ -16,7 +16,8 @@ function expectSameResults(compiled: Evaluation, reference: Evaluation): void {
 describe('compiled evaluation', () => {
   it('gives the same values as HyperFormula on the square-sail template', () => {
     const sheet = squareSailTemplate();
-    for (const overrides of [{}, { cone_angle: 35, distance: 0.7 }, { sail_side: '800 m', boom_count: 3 }]) {
+    const cases: Overrides[] = [{}, { cone_angle: 35, distance: 0.7 }, { sail_side: '800 m', boom_count: 3 }];
+    for (const overrides of cases) {
       const reference = evaluateSheet(sheet, overrides);
       expect(reference.errors).toEqual([]);
       expectSameResults(evaluateCompiled(sheet, overrides), reference);
