@@ -1,5 +1,7 @@
 import { ASTRONOMICAL_UNIT } from '@/shared/sail/constants';
+import type { OpticalCoefficients } from '@/shared/sail/optics';
 import { radiationPressure, solarGravity } from '@/shared/sail/radiation-pressure';
+import { opticalSailForce } from '@/shared/sail/sail-force';
 import { requireInRange, requireNonNegative, requirePositive } from '@/shared/sail/validate';
 
 /**
@@ -33,6 +35,18 @@ export function characteristicAcceleration(loading: number, efficiency = 1): num
   requirePositive('characteristicAcceleration', 'loading', loading);
   requireInRange('characteristicAcceleration', 'efficiency', efficiency, 0, 1);
   return (2 * efficiency * radiationPressure(ASTRONOMICAL_UNIT.value)) / loading;
+}
+
+/**
+ * Characteristic acceleration of a non-ideal sail: the optical model's normal force per unit area
+ * at 1 AU facing the sun, over the sail loading, a_c = F_n(0) / (A σ) (McInnes 1999, ch. 2).
+ * @param loading sail loading σ (kg/m^2), > 0
+ * @param optics optical coefficients
+ * @returns a_c (m/s^2)
+ */
+export function opticalCharacteristicAcceleration(loading: number, optics: OpticalCoefficients): number {
+  requirePositive('opticalCharacteristicAcceleration', 'loading', loading);
+  return opticalSailForce(1, 0, ASTRONOMICAL_UNIT.value, optics).normal / loading;
 }
 
 /**

@@ -1,9 +1,11 @@
 import { ASTRONOMICAL_UNIT, SOLAR_GM } from '@/shared/sail/constants';
+import { REFERENCE_SAIL_OPTICS } from '@/shared/sail/optics';
 import {
   characteristicAcceleration,
   characteristicAccelerationFromLightness,
   criticalSailLoading,
   lightnessNumber,
+  opticalCharacteristicAcceleration,
   sailLoading,
   solarGravityAt1AU,
 } from '@/shared/sail/performance';
@@ -29,6 +31,13 @@ describe('sizing figures', () => {
     // McInnes 1999, ch. 2: a_c = 2 η P / σ; 9.08e-6 N/m^2 on 10 g/m^2 gives 0.908 mm/s^2
     expect(characteristicAcceleration(0.01) * 1000).toBeCloseTo(0.908, 3);
     expect(characteristicAcceleration(0.01, 0.85)).toBeCloseTo(0.85 * characteristicAcceleration(0.01), 15);
+  });
+
+  it('the optical sail reaches 0.908 of the ideal characteristic acceleration', () => {
+    // McInnes 1999 after Wright 1992 (from memory): F_n(0) / (2 P A) ≈ 0.908 with the tabulated coefficients
+    const ratio = opticalCharacteristicAcceleration(0.01, REFERENCE_SAIL_OPTICS) / characteristicAcceleration(0.01);
+    expect(ratio).toBeCloseTo(0.908, 3);
+    expect(() => opticalCharacteristicAcceleration(-1, REFERENCE_SAIL_OPTICS)).toThrow(/opticalCharacteristicAcceleration: loading/);
   });
 
   it('a_c = β GM_sun / AU^2 inverts the lightness number', () => {
