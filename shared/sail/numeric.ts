@@ -16,6 +16,7 @@ export function linspace(start: number, stop: number, count: number): number[] {
 }
 
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
+const MAX_ITERATIONS = 400;
 
 /**
  * Golden-section search for the maximum of a unimodal function on [low, high].
@@ -28,7 +29,8 @@ export function maximise(f: (x: number) => number, low: number, high: number, to
   let d = a + GOLDEN * (b - a);
   let fc = f(c);
   let fd = f(d);
-  while (b - a > tolerance) {
+  // The iteration cap ends the search should the tolerance be below what doubles can resolve.
+  for (let iteration = 0; iteration < MAX_ITERATIONS && b - a > tolerance; iteration += 1) {
     if (fc > fd) {
       b = d;
       d = c;
@@ -61,6 +63,8 @@ export function bisect(f: (x: number) => number, low: number, high: number, tole
   }
   while (b - a > tolerance * Math.max(1, Math.abs(a))) {
     const m = (a + b) / 2;
+    // The bracket cannot shrink below adjacent doubles.
+    if (m === a || m === b) break;
     const fm = f(m);
     if (fm === 0) return m;
     if (Math.sign(fm) === Math.sign(fa)) {

@@ -69,13 +69,3 @@ describe('bestTransverseConeAngle', () => {
     expect(() => bestTransverseConeAngle({ kind: 'ideal', efficiency: 0 })).toThrow(/efficiency must be greater than 0/);
   });
 });
-
-describe('linspace', () => {
-  it('spans both ends', () => {
-    expect(linspace(0, 1, 5)).toEqual([0, 0.25, 0.5, 0.75, 1]);
-  });
-
-  it('refuses fewer than two points', () => {
-    expect(() => linspace(0, 1, 1)).toThrow(/count must be an integer >= 2, got 1/);
-  });
-});
