@@ -1,4 +1,4 @@
-import { C_AUDAY, KM_PER_AU } from 'astronomy-engine';
+import { Body, C_AUDAY, KM_PER_AU, MassProduct } from 'astronomy-engine';
 import { unit } from 'mathjs';
 import {
   ASTRONOMICAL_UNIT,
@@ -37,6 +37,13 @@ describe('physical constants', () => {
     // astronomy-engine C_AUDAY: speed of light in AU per day
     const cFromEngine = (C_AUDAY * KM_PER_AU * 1000) / 86_400;
     expect(SPEED_OF_LIGHT.value / cFromEngine).toBeCloseTo(1, 9);
+  });
+
+  it('agree with astronomy-engine on the solar and Earth gravitational parameters', () => {
+    // astronomy-engine MassProduct: GM in au^3/day^2 (its ephemeris values)
+    const toSI = Math.pow(KM_PER_AU * 1000, 3) / (86_400 * 86_400);
+    expect((MassProduct(Body.Sun) * toSI) / SOLAR_GM.value).toBeCloseTo(1, 8);
+    expect((MassProduct(Body.Earth) * toSI) / EARTH_GM.value).toBeCloseTo(1, 6);
   });
 
   it.each(Object.entries(physicalConstants))('%s has a source and a unit mathjs parses', (_name, constant) => {
