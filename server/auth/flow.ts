@@ -55,13 +55,15 @@ function refusalCode(info: unknown): SignInErrorCode {
   return /state/i.test(message) ? 'state_mismatch' : 'access_denied';
 }
 
-/** openid-client reports a state that does not match the one it sent as an invalid response. */
-function isStateMismatch(error: unknown): boolean {
-  for (let cause = error; cause instanceof Error; cause = cause.cause) {
-    if (cause.message.includes('"state"')) return true;
-  }
-  return false;
+/** An error and its causes, outermost first: openid-client wraps the telling message in a generic one. */
+function errorChain(error: unknown): string[] {
+  const messages: string[] = [];
+  for (let cause = error; cause instanceof Error; cause = cause.cause) messages.push(cause.message);
+  return messages.length > 0 ? messages : [String(error)];
 }
+
+/** openid-client reports a state that does not match the one it sent as an invalid response. */
+const isStateMismatch = (error: unknown) => errorChain(error).some((message) => message.includes('"state"'));
 
 /**
  * GET /<provider> and /<provider>/callback: the first redirects to the provider; the callback completes the
@@ -72,7 +74,7 @@ export function signInWith(passport: Passport, provider: SignInProvider): Reques
     const authenticate = passport.authenticate(provider, (error: unknown, user: Express.User | false | undefined, info: unknown) => {
       if (error) {
         const code = isStateMismatch(error) ? 'state_mismatch' : 'provider_error';
-        console.warn(`[auth] ${provider} sign-in failed (${code}):`, error instanceof Error ? error.message : error);
+        console.warn(`[auth] ${provider} sign-in failed (${code}): ${errorChain(error).join(': ')}`);
         res.redirect(failureUrl(code));
         return;
       }
@@ -92,7 +94,7 @@ export function requireStrategy(load: () => Promise<void>): RequestHandler {
     try {
       await load();
     } catch (error) {
-      console.warn('[auth] SSO discovery failed:', error instanceof Error ? error.message : error);
+      console.warn(`[auth] SSO discovery failed: ${errorChain(error).join(': ')}`);
       res.redirect(failureUrl('provider_error'));
       return;
     }

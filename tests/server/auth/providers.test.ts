@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { demoPeople } from '@/server/seed/demo-scenario';
 import { signIn, type Provider } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
@@ -18,5 +19,29 @@ describe.each<Provider>(['google', 'sso'])('signing in with %s', (provider) => {
     const session = await agent.get('/api/auth/session').expect(200);
     expect(session.body.user).toEqual(expect.objectContaining({ email: person.email, name: person.name, isOrgAdmin: person.isOrgAdmin }));
     expect(session.body.csrfToken).toBe(csrfToken);
+  });
+});
+
+describe.each<Provider>(['google', 'sso'])('the %s authorization request', (provider) => {
+  it('asks for an authorization code with PKCE (S256), a state and the OpenID scopes', async () => {
+    const start = await request(testApp.app).get(`/api/auth/${provider}`).expect(302);
+    const params = new URL(start.headers.location).searchParams;
+    expect(Object.fromEntries(params)).toEqual(
+      expect.objectContaining({
+        response_type: 'code',
+        scope: 'openid email profile',
+        code_challenge_method: 'S256',
+        code_challenge: expect.stringMatching(/^[\w-]{43}$/),
+        state: expect.stringMatching(/.{16,}/),
+        redirect_uri: `${testApp.config.publicUrl}/api/auth/${provider}/callback`,
+      }),
+    );
+  });
+});
+
+describe('the company SSO authorization request', () => {
+  it('also carries a nonce for the ID token', async () => {
+    const start = await request(testApp.app).get('/api/auth/sso').expect(302);
+    expect(new URL(start.headers.location).searchParams.get('nonce')).toMatch(/.{16,}/);
   });
 });

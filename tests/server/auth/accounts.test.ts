@@ -1,0 +1,83 @@
+import request from 'supertest';
+import { Identity, Invitation, Organisation, User } from '@/server/models';
+import { demoOrganisations, demoPeople } from '@/server/seed/demo-scenario';
+import { callbackFromFake, signIn } from '../helpers/sign-in';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let testApp: TestApp;
+
+beforeAll(async () => {
+  testApp = await createTestApp();
+});
+
+afterAll(async () => {
+  await testApp.close();
+});
+
+function person(subject: string) {
+  const found = demoPeople.find((candidate) => candidate.subject === subject);
+  if (!found) throw new Error(`no demo person ${subject}`);
+  return found;
+}
+
+async function finishAt(subject: string, provider: 'google' | 'sso') {
+  const agent = request.agent(testApp.app);
+  const callback = await callbackFromFake(agent, subject, provider);
+  const response = await agent.get(callback).expect(302);
+  return { agent, location: response.headers.location };
+}
+
+describe('first sign-in of a demo person', () => {
+  it('links the provider identity by verified e-mail once and finds the person by it afterwards', async () => {
+    const amara = person('demo-amara');
+    await signIn(testApp.app, amara.subject, 'sso');
+    await signIn(testApp.app, amara.subject, 'sso');
+    const user = await User.findOne({ where: { email: amara.email }, rejectOnEmpty: true });
+    const identities = await Identity.findAll({ where: { userId: user.id } });
+    expect(identities.map(({ provider, subject }) => ({ provider, subject }))).toEqual([{ provider: 'sso', subject: amara.subject }]);
+  });
+});
+
+describe('a person with no Trimsheet account', () => {
+  it('is refused with no_account and nothing is created', async () => {
+    const oren = person('demo-oren');
+    await User.destroy({ where: { email: oren.email } });
+    const { agent, location } = await finishAt(oren.subject, 'google');
+    expect(location).toBe('/sign-in?error=no_account');
+    expect(await User.count({ where: { email: oren.email } })).toBe(0);
+    expect(await Identity.count({ where: { subject: oren.subject } })).toBe(0);
+    const session = await agent.get('/api/auth/session').expect(200);
+    expect(session.body.user).toBeNull();
+  });
+});
+
+describe('a person with a pending invitation', () => {
+  it('becomes a member of the inviting organisation at first sign-in, and the invitation is accepted', async () => {
+    const lucia = person('demo-lucia');
+    const corvid = await Organisation.findOne({ where: { slug: demoOrganisations.corvid.slug }, rejectOnEmpty: true });
+    const inviter = await User.findOne({ where: { email: person('demo-ines').email }, rejectOnEmpty: true });
+    await User.destroy({ where: { email: lucia.email } });
+    const invitation = await Invitation.create({ organisationId: corvid.id, invitedById: inviter.id, email: lucia.email.toUpperCase(), name: 'Lucia B.' });
+
+    const { agent } = await signIn(testApp.app, lucia.subject, 'sso');
+
+    const session = await agent.get('/api/auth/session').expect(200);
+    expect(session.body.user).toEqual(
+      expect.objectContaining({ email: lucia.email, name: lucia.name, isOrgAdmin: false, organisation: { id: corvid.id, name: corvid.name } }),
+    );
+    await invitation.reload();
+    expect(invitation.acceptedAt).toBeInstanceOf(Date);
+    const user = await User.findOne({ where: { email: lucia.email }, rejectOnEmpty: true });
+    expect(await Identity.count({ where: { userId: user.id, provider: 'sso', subject: lucia.subject } })).toBe(1);
+  });
+});
+
+describe('a session whose person was removed', () => {
+  it('is treated as signed out', async () => {
+    const kenji = person('demo-kenji');
+    const { agent } = await signIn(testApp.app, kenji.subject, 'google');
+    await User.destroy({ where: { email: kenji.email } });
+    const session = await agent.get('/api/auth/session').expect(200);
+    expect(session.body.user).toBeNull();
+  });
+});

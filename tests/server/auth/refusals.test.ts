@@ -1,0 +1,98 @@
+import type { Express } from 'express';
+import net from 'node:net';
+import request from 'supertest';
+import { createApp } from '@/server/app';
+import type { Config } from '@/server/env';
+import { createMailer, type Mailer } from '@/server/services/mailer';
+import { callbackFromFake, type Agent, type Provider } from '../helpers/sign-in';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let testApp: TestApp;
+const mailers: Mailer[] = [];
+const warnings = jest.spyOn(console, 'warn').mockImplementation(() => undefined);
+
+beforeAll(async () => {
+  testApp = await createTestApp();
+});
+
+beforeEach(() => warnings.mockClear());
+
+afterAll(async () => {
+  for (const mailer of mailers) mailer.close();
+  await testApp.close();
+});
+
+/** The same database with a changed configuration, built by the real app factory. */
+function appWith(change: (config: Config) => Config): Express {
+  const config = change(testApp.config);
+  const mailer = createMailer(config.smtp);
+  mailers.push(mailer);
+  return createApp({ config, sequelize: testApp.sequelize, mailer });
+}
+
+async function landing(agent: Agent, path: string) {
+  const response = await agent.get(path).expect(302);
+  return response.headers.location;
+}
+
+describe.each<Provider>(['google', 'sso'])('a %s callback that does not belong to the sign-in', (provider) => {
+  it('is refused with state_mismatch when the state was altered', async () => {
+    const agent = request.agent(testApp.app);
+    const callback = new URL(await callbackFromFake(agent, 'demo-tomas', provider), 'http://app.invalid');
+    callback.searchParams.set('state', 'forged-state');
+    expect(await landing(agent, `${callback.pathname}${callback.search}`)).toBe('/sign-in?error=state_mismatch');
+    expect((await agent.get('/api/auth/session').expect(200)).body.user).toBeNull();
+  });
+
+  it('is refused with state_mismatch in a browser that did not start it', async () => {
+    const callback = await callbackFromFake(request.agent(testApp.app), 'demo-tomas', provider);
+    const stranger = request.agent(testApp.app);
+    expect(await landing(stranger, callback)).toBe('/sign-in?error=state_mismatch');
+    expect((await stranger.get('/api/auth/session').expect(200)).body.user).toBeNull();
+  });
+});
+
+describe('cancelling at the provider', () => {
+  it('comes back as access_denied', async () => {
+    const agent = request.agent(testApp.app);
+    const start = await agent.get('/api/auth/sso').expect(302);
+    const atFake = await fetch(start.headers.location, { redirect: 'manual' });
+    const interaction = new URL(atFake.headers.get('location') ?? '', start.headers.location);
+    const cookie = atFake.headers
+      .getSetCookie()
+      .map((line) => line.split(';')[0])
+      .join('; ');
+    const cancelled = await fetch(new URL(`${interaction.pathname}/cancel`, interaction), { method: 'POST', redirect: 'manual', headers: { cookie } });
+    const resumed = await fetch(new URL(cancelled.headers.get('location') ?? '', interaction), { redirect: 'manual', headers: { cookie } });
+    const callback = new URL(resumed.headers.get('location') ?? '');
+    expect(callback.pathname).toBe('/api/auth/sso/callback');
+    expect(await landing(agent, `${callback.pathname}${callback.search}`)).toBe('/sign-in?error=access_denied');
+  });
+});
+
+describe('sign-in rate limit', () => {
+  it('sends the third start within 15 minutes to the sign-in page with too_many_requests', async () => {
+    const agent = request.agent(appWith((config) => ({ ...config, signInRateLimit: 2 })));
+    expect(await landing(agent, '/api/auth/google')).toMatch(/^http/);
+    expect(await landing(agent, '/api/auth/sso')).toMatch(/^http/);
+    expect(await landing(agent, '/api/auth/google')).toBe('/sign-in?error=too_many_requests');
+  });
+});
+
+describe('an unreachable company identity provider', () => {
+  let closedPort = 0;
+  beforeAll(async () => {
+    const probe = net.createServer();
+    await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', resolve));
+    closedPort = (probe.address() as net.AddressInfo).port;
+    await new Promise<void>((resolve) => probe.close(() => resolve()));
+  });
+
+  it('does not stop the app from starting, and sends SSO sign-ins back with provider_error', async () => {
+    const app = appWith((config) => ({ ...config, sso: { ...config.sso, issuer: `http://127.0.0.1:${closedPort}` } }));
+    const agent = request.agent(app);
+    expect(await landing(agent, '/api/auth/sso')).toBe('/sign-in?error=provider_error');
+    expect(warnings).toHaveBeenCalledWith(expect.stringContaining('[auth] SSO discovery failed'));
+    expect(await landing(agent, '/api/auth/google')).toMatch(/^http/);
+  });
+});
