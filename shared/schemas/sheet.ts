@@ -56,19 +56,23 @@ export const parameterSchema = z
     }
   });
 
+const sheetHeader = {
+  name: z.string().min(1, { message: 'must not be empty' }),
+  budget: z
+    .object({
+      preset: z.string().min(1),
+      requiredMarginPercent: z.number().min(0).max(100).optional(),
+    })
+    .strict()
+    .optional(),
+};
+
+/** A sheet's name and budget settings, without its rows: to read a sheet row by row. */
+export const sheetHeaderSchema = z.object(sheetHeader);
+
 /** A craft's sheet: its name, the mass-budget settings and the list of parameters. */
 export const sheetSchema = z
-  .object({
-    name: z.string().min(1, { message: 'must not be empty' }),
-    budget: z
-      .object({
-        preset: z.string().min(1),
-        requiredMarginPercent: z.number().min(0).max(100).optional(),
-      })
-      .strict()
-      .optional(),
-    parameters: z.array(parameterSchema),
-  })
+  .object({ ...sheetHeader, parameters: z.array(parameterSchema) })
   .strict()
   .superRefine((sheet, ctx) => {
     const seen = new Set<string>();
