@@ -10,7 +10,7 @@ import { myRoleLabel } from './role-label';
 export function CraftCard({ craft }: { craft: Craft }) {
   return (
     <Link href={{ pathname: '/crafts/[craftId]', params: { craftId: craft.id } }} asChild>
-      <Pressable role="link" aria-label={`Open ${craft.name}`} testID={`craft-card-${craft.id}`} style={({ pressed }) => [styles.card, pressed && styles.pressed]}>
+      <Pressable role="link" testID={`craft-card-${craft.id}`} style={styles.card}>
         <View style={styles.top}>
           <AppText variant="heading" style={styles.name}>
             {craft.name}
@@ -37,7 +37,6 @@ const styles = StyleSheet.create({
     padding: space.lg,
     gap: space.sm,
   },
-  pressed: { backgroundColor: colors.surfaceSunken },
   top: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'center', gap: space.sm },
   name: { flexShrink: 1 },
 });

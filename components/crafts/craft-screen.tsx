@@ -12,6 +12,7 @@ import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
+import { mayOnCraft } from '@/shared/access/permissions';
 import type { Craft } from '@/shared/schemas/crafts';
 import { CraftForm } from './craft-form';
 import { craftOptions, useUpdateCraft } from './queries';
@@ -47,11 +48,11 @@ export function CraftScreen({ craftId }: { craftId: string }) {
     );
   }
 
-  const canEdit = isOrgAdmin || craft.data.myRole === 'chief_engineer';
+  const who = { role: craft.data.myRole, isOrgAdmin };
   return (
     <Screen title={craft.data.name} aside={back}>
-      <CraftSummary craft={craft.data} canEdit={canEdit} />
-      <CraftMembers craftId={craftId} canManage={isOrgAdmin} />
+      <CraftSummary craft={craft.data} canEdit={mayOnCraft('editCraftDetails', who)} />
+      <CraftMembers craftId={craftId} canManage={mayOnCraft('manageMembers', who)} />
     </Screen>
   );
 }

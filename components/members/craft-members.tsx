@@ -5,9 +5,10 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ChoiceChips } from '@/components/ui/choice-chips';
+import { DividedList } from '@/components/ui/divided-list';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
-import { colors, space } from '@/components/ui/theme';
+import { space } from '@/components/ui/theme';
 import type { Member } from '@/shared/schemas/members';
 import { craftRoleLabels } from '@/shared/schemas/roles';
 import { MemberEditor } from './member-editor';
@@ -34,11 +35,11 @@ export function CraftMembers({ craftId, canManage }: CraftMembersProps) {
       ) : members.data.length === 0 ? (
         <EmptyState title="No members" message="Nobody has been added to this craft yet." />
       ) : (
-        <Card style={styles.list} testID="member-list">
+        <DividedList testID="member-list">
           {members.data.map((member) => (
             <MemberRow key={member.userId} craftId={craftId} member={member} canManage={canManage} />
           ))}
-        </Card>
+        </DividedList>
       )}
     </View>
   );
@@ -143,8 +144,7 @@ function AddMember({ craftId, members }: { craftId: string; members: readonly Me
 
 const styles = StyleSheet.create({
   section: { gap: space.md },
-  list: { padding: 0, gap: 0 },
-  row: { padding: space.lg, gap: space.sm, borderBottomWidth: 1, borderBottomColor: colors.border },
+  row: { padding: space.lg, gap: space.sm },
   rowTop: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'center', gap: space.sm },
   who: { flexShrink: 1 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },

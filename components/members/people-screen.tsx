@@ -3,6 +3,7 @@ import { StyleSheet, Switch, View } from 'react-native';
 import { useSessionUser } from '@/components/auth/queries';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
+import { DividedList } from '@/components/ui/divided-list';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
@@ -32,13 +33,13 @@ export function PeopleScreen() {
         <ErrorState title="Could not load the organisation" message={organisation.error.message} onRetry={() => void organisation.refetch()} />
       ) : (
         <>
-          <Card testID="people-list" style={styles.list}>
+          <DividedList testID="people-list">
             {organisation.data.people.length === 0 ? (
               <EmptyState title="No people" message="Invite someone below." />
             ) : (
               organisation.data.people.map((person) => <PersonRow key={person.id} person={person} />)
             )}
-          </Card>
+          </DividedList>
           <Card>
             <AppText variant="title">Invite a person</AppText>
             <InviteForm />
@@ -48,11 +49,11 @@ export function PeopleScreen() {
             {organisation.data.invitations.length === 0 ? (
               <EmptyState title="No invitations" message="Invitations you send appear here." />
             ) : (
-              <Card testID="invitation-list" style={styles.list}>
+              <DividedList testID="invitation-list">
                 {organisation.data.invitations.map((invitation) => (
                   <InvitationRow key={invitation.id} invitation={invitation} />
                 ))}
-              </Card>
+              </DividedList>
             )}
           </View>
         </>
@@ -103,7 +104,6 @@ function InvitationRow({ invitation }: { invitation: Invitation }) {
 }
 
 const styles = StyleSheet.create({
-  list: { padding: 0, gap: 0 },
   section: { gap: space.md },
   row: {
     flexDirection: 'row',
@@ -112,8 +112,6 @@ const styles = StyleSheet.create({
     justifyContent: 'space-between',
     gap: space.md,
     padding: space.lg,
-    borderBottomWidth: 1,
-    borderBottomColor: colors.border,
   },
   who: { flexShrink: 1, gap: 2 },
   toggle: { flexDirection: 'row', alignItems: 'center', gap: space.sm },

@@ -12,7 +12,7 @@ type NavItemProps = TabTriggerSlotProps & { label: string; icon: NavIconName; pl
 
 function NavItem({ label, icon, placement, isFocused = false, ...props }: NavItemProps) {
   const side = placement === 'side';
-  const color = isFocused ? colors.accent : side ? colors.background : colors.inkMuted;
+  const color = side ? (isFocused ? colors.accentOnInk : colors.background) : isFocused ? colors.accent : colors.inkMuted;
   return (
     <Pressable
       {...props}
@@ -107,7 +107,7 @@ const styles = StyleSheet.create({
   },
   sideItemFocused: { backgroundColor: 'rgba(245, 241, 232, 0.12)' },
   sideLabel: { fontFamily: fonts.medium },
-  bottomItem: { flex: 1, minHeight: 56, alignItems: 'center', justifyContent: 'center', gap: 2, paddingVertical: space.xs },
-  bottomItemFocused: { borderTopWidth: 3, borderTopColor: colors.accent },
+  bottomItem: { flex: 1, minHeight: 56, borderTopWidth: 3, borderTopColor: 'transparent', alignItems: 'center', justifyContent: 'center', gap: 2, paddingVertical: space.xs },
+  bottomItemFocused: { borderTopColor: colors.accent },
   bottomLabel: { fontFamily: fonts.medium, fontSize: 12, lineHeight: 16 },
 });

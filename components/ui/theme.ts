@@ -13,6 +13,8 @@ export const colors = {
   accent: '#B4521C',
   accentPressed: '#8F3F13',
   accentSoft: '#F6E3D3',
+  /** The accent as it reads on ink-blue panels. */
+  accentOnInk: '#F4A771',
   onAccent: '#FFFFFF',
   danger: '#A32A1F',
   dangerSoft: '#F8E1DC',

@@ -1,0 +1,39 @@
+import { fireEvent, screen } from '@testing-library/dom';
+import SignInRoute from '@/app/(auth)/sign-in';
+import { assignPageLocation } from '@/components/auth/page-navigation';
+import { describeSignInError } from '@/components/auth/sign-in-screen';
+import { setupQueryClient } from '../helpers/api';
+import { renderRoutes } from '../helpers/render';
+
+jest.mock('@/components/auth/page-navigation', () => ({ assignPageLocation: jest.fn() }));
+
+describe('SignInScreen', () => {
+  it('offers Google and company SSO, each starting the sign-in at the provider URL of the session', () => {
+    const { wrapper } = setupQueryClient(null);
+    renderRoutes({ 'sign-in': SignInRoute }, '/sign-in', wrapper);
+
+    expect(screen.getByRole('heading', { name: 'Trimsheet' })).toBeTruthy();
+    const google = screen.getByRole('button', { name: 'Sign in with Google' });
+    const sso = screen.getByRole('button', { name: 'Company SSO' });
+    expect(google.getAttribute('data-testid')).toBe('sign-in-google');
+    expect(sso.getAttribute('data-testid')).toBe('sign-in-sso');
+
+    fireEvent.click(google);
+    expect(assignPageLocation).toHaveBeenLastCalledWith('/api/auth/google');
+    fireEvent.click(sso);
+    expect(assignPageLocation).toHaveBeenLastCalledWith('/api/auth/sso');
+    expect(screen.queryByTestId('sign-in-error')).toBeNull();
+  });
+
+  it('shows the ?error= code from the URL as a readable message', () => {
+    const { wrapper } = setupQueryClient(null);
+    renderRoutes({ 'sign-in': SignInRoute }, '/sign-in?error=state_mismatch', wrapper);
+
+    expect(screen.getByTestId('sign-in-error').textContent).toBe('Sign-in did not complete (state mismatch). Please try again.');
+  });
+
+  it('words known error codes in full and never shows an empty reason', () => {
+    expect(describeSignInError('access_denied')).toBe('Sign-in was cancelled at the provider.');
+    expect(describeSignInError('__')).toBe('Sign-in did not complete (unknown reason). Please try again.');
+  });
+});
