@@ -52,13 +52,15 @@ function uniformRow(percent: number): PercentRow {
 const aiaaPreset: AllowancePreset = {
   id: 'aiaa-s120a',
   name: 'AIAA S-120A-style mass growth allowances',
-  source: 'AIAA S-120A-2015 (R2019), Mass Properties Control for Space Systems, with SAWE RP A-3 (from memory)',
+  source:
+    'AIAA S-120A-2015 (R2019), Mass Properties Control for Space Systems, with SAWE RP A-3 (from memory)',
   caveat:
     'From memory, verify against the standard: the cells follow the recalled pattern of the AIAA S-120A allowance table (18–35 % estimated, 1–3 % existing hardware, 0 % measured, harness 50 % when estimated) and are not copied from it. The system margin of 15 % is common practice; S-120A leaves it to the programme.',
   maturities: aiaaMaturities,
   categories: hardwareCategories,
   table: percentTable({
-    //                    struct mech memb boom elec harn therm prop payl other
+    // Columns in the order of hardwareCategories: structure, mechanism, membrane, boom, electrical,
+    // harness, thermal, propulsion, payload, other.
     estimated: [18, 18, 25, 25, 30, 50, 18, 18, 35, 25],
     layout: [12, 14, 18, 18, 20, 30, 12, 12, 25, 18],
     pre_release_drawings: [8, 10, 12, 12, 12, 20, 8, 8, 15, 12],

@@ -42,7 +42,8 @@ function checkTable(table: unknown, maturities: string[], categories: string[], 
     return;
   }
   for (const key of Object.keys(table)) {
-    if (!maturities.includes(key)) issues.push({ path: `table.${key}`, message: `'${key}' is not a maturity of this preset` });
+    if (!maturities.includes(key))
+      issues.push({ path: `table.${key}`, message: `'${key}' is not a maturity of this preset` });
   }
   for (const maturity of maturities) {
     const row = table[maturity];
@@ -52,7 +53,10 @@ function checkTable(table: unknown, maturities: string[], categories: string[], 
     }
     for (const key of Object.keys(row)) {
       if (!categories.includes(key)) {
-        issues.push({ path: `table.${maturity}.${key}`, message: `'${key}' is not a category of this preset` });
+        issues.push({
+          path: `table.${maturity}.${key}`,
+          message: `'${key}' is not a category of this preset`,
+        });
       }
     }
     for (const category of categories) {

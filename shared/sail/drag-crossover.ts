@@ -17,13 +17,16 @@ export const DRAG_CROSSOVER_CAVEAT =
  */
 export function checkDensityTable(table: DensityTable): DensityTable {
   const where = `density table '${table.id}'`;
-  if (table.points.length < 2) throw new RangeError(`${where}: needs at least two rows, has ${table.points.length}`);
+  if (table.points.length < 2)
+    throw new RangeError(`${where}: needs at least two rows, has ${table.points.length}`);
   table.points.forEach((point, index) => {
     requireFinite(where, `points[${index}].altitude`, point.altitude);
     requirePositive(where, `points[${index}].density`, point.density);
     const previous = table.points[index - 1];
     if (previous && point.altitude <= previous.altitude) {
-      throw new RangeError(`${where}: points[${index}].altitude must be above the row before it, got ${point.altitude} m after ${previous.altitude} m`);
+      throw new RangeError(
+        `${where}: points[${index}].altitude must be above the row before it, got ${point.altitude} m after ${previous.altitude} m`,
+      );
     }
   });
   return table;
@@ -37,7 +40,10 @@ export function checkDensityTable(table: DensityTable): DensityTable {
  * @returns density (kg/m^3)
  * @throws RangeError when the altitude is outside the table
  */
-export function atmosphericDensity(altitude: number, table: DensityTable = VALLADO_EXPONENTIAL_TABLE): number {
+export function atmosphericDensity(
+  altitude: number,
+  table: DensityTable = VALLADO_EXPONENTIAL_TABLE,
+): number {
   checkDensityTable(table);
   const { points } = table;
   const first = points[0];
@@ -49,7 +55,9 @@ export function atmosphericDensity(altitude: number, table: DensityTable = VALLA
     if (altitude <= upper.altitude) {
       if (upper.altitude === lower.altitude) return upper.density;
       const fraction = (altitude - lower.altitude) / (upper.altitude - lower.altitude);
-      return Math.exp(Math.log(lower.density) + fraction * (Math.log(upper.density) - Math.log(lower.density)));
+      return Math.exp(
+        Math.log(lower.density) + fraction * (Math.log(upper.density) - Math.log(lower.density)),
+      );
     }
     lower = upper;
   }
@@ -119,8 +127,14 @@ export type DragCrossoverResult =
  */
 export function dragCrossoverAltitude(options: DragCrossoverOptions = {}): DragCrossoverResult {
   const table = checkDensityTable(options.table ?? VALLADO_EXPONENTIAL_TABLE);
-  const dragCoefficient = requirePositive('dragCrossoverAltitude', 'dragCoefficient', options.dragCoefficient ?? COMMON_DRAG_COEFFICIENT);
-  const efficiency = requireInRange('dragCrossoverAltitude', 'efficiency', options.efficiency ?? 1, 0, 1, { minExclusive: true });
+  const dragCoefficient = requirePositive(
+    'dragCrossoverAltitude',
+    'dragCoefficient',
+    options.dragCoefficient ?? COMMON_DRAG_COEFFICIENT,
+  );
+  const efficiency = requireInRange('dragCrossoverAltitude', 'efficiency', options.efficiency ?? 1, 0, 1, {
+    minExclusive: true,
+  });
   const pressure = 2 * efficiency * radiationPressure(ASTRONOMICAL_UNIT.value);
   const low = Math.max(0, table.points[0]?.altitude ?? 0);
   const high = table.points[table.points.length - 1]?.altitude ?? low;

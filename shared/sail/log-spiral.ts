@@ -11,7 +11,11 @@ const LARGEST_LIGHTNESS_SPIRAL_ANGLE = Math.atan(Math.SQRT2);
 
 function checkSpiralConeAngle(where: string, coneAngle: number): number {
   // At 0 the sail gives no transverse force and at π/2 no force at all: no spiral.
-  return requireInRange(where, 'coneAngle', coneAngle, 0, Math.PI / 2, { minExclusive: true, maxExclusive: true, unit: 'rad' });
+  return requireInRange(where, 'coneAngle', coneAngle, 0, Math.PI / 2, {
+    minExclusive: true,
+    maxExclusive: true,
+    unit: 'rad',
+  });
 }
 
 /**
@@ -98,5 +102,11 @@ export function logSpiralTransfer(input: LogSpiralTransferInput): LogSpiralTrans
   const cos = Math.cos(alpha);
   const rate = Math.sqrt(SOLAR_GM.value * beta * cos * cos * Math.sin(alpha) * Math.tan(gamma));
   const time = ((Math.SQRT2 / 3) * Math.abs(Math.pow(r1, 1.5) - Math.pow(r0, 1.5))) / rate;
-  return { ok: true, time, spiralAngle: gamma, direction: r1 >= r0 ? 'outward' : 'inward', caveat: LOG_SPIRAL_CAVEAT };
+  return {
+    ok: true,
+    time,
+    spiralAngle: gamma,
+    direction: r1 >= r0 ? 'outward' : 'inward',
+    caveat: LOG_SPIRAL_CAVEAT,
+  };
 }

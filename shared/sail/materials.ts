@@ -9,12 +9,7 @@ export interface SourcedValue {
 
 /** The properties a material may carry. Optical ones describe the material as a sail face. */
 export type MaterialPropertyName =
-  | 'density'
-  | 'temperatureLimit'
-  | 'reflectivity'
-  | 'specularFraction'
-  | 'emissivity'
-  | 'nonLambertian';
+  'density' | 'temperatureLimit' | 'reflectivity' | 'specularFraction' | 'emissivity' | 'nonLambertian';
 
 /** What the material is used for on a sail craft. */
 export type MaterialKind = 'film' | 'coating' | 'boom';

@@ -92,7 +92,8 @@ export function opticalSailForce(
   const cos = Math.cos(coneAngle);
   const sin = Math.sin(coneAngle);
   const normal =
-    pa * ((1 + r * s) * cos * cos + bf * (1 - s) * r * cos + ((1 - r) * (ef * bf - eb * bb)) / (ef + eb) * cos);
+    pa *
+    ((1 + r * s) * cos * cos + bf * (1 - s) * r * cos + (((1 - r) * (ef * bf - eb * bb)) / (ef + eb)) * cos);
   const transverse = pa * (1 - r * s) * cos * sin;
   return components(normal, transverse, coneAngle);
 }

@@ -85,5 +85,9 @@ export function bestTransverseConeAngle(model: SailForceModel): number {
   if (model.kind === 'ideal') {
     requirePositive('bestTransverseConeAngle', 'efficiency', model.efficiency);
   }
-  return maximise((coneAngle) => sailForce(model, 1, coneAngle, ASTRONOMICAL_UNIT.value).circumferential, 0, Math.PI / 2);
+  return maximise(
+    (coneAngle) => sailForce(model, 1, coneAngle, ASTRONOMICAL_UNIT.value).circumferential,
+    0,
+    Math.PI / 2,
+  );
 }

@@ -6,7 +6,11 @@ import { requireInRange, requirePositive } from '@/shared/sail/validate';
 /** Cone angles the equilibrium formula accepts: the sun must light the front, (−π/2, π/2) rad. */
 function checkLitConeAngle(where: string, coneAngle: number): number {
   const limit = Math.PI / 2;
-  return requireInRange(where, 'coneAngle', coneAngle, -limit, limit, { minExclusive: true, maxExclusive: true, unit: 'rad' });
+  return requireInRange(where, 'coneAngle', coneAngle, -limit, limit, {
+    minExclusive: true,
+    maxExclusive: true,
+    unit: 'rad',
+  });
 }
 
 /** (1 − r) cos α / (σ_SB (ε_f + ε_b)): absorbed over emitted per unit irradiance, m^2 K^4 / W. */
@@ -52,7 +56,10 @@ export function temperatureVersusDistance(
   coneAngle: number,
   optics: OpticalCoefficients,
 ): TemperaturePoint[] {
-  return distances.map((distance) => ({ distance, temperature: sailTemperature(distance, coneAngle, optics) }));
+  return distances.map((distance) => ({
+    distance,
+    temperature: sailTemperature(distance, coneAngle, optics),
+  }));
 }
 
 /**
@@ -73,5 +80,8 @@ export function closestSafeDistance(
   checkLitConeAngle(where, coneAngle);
   checkOptics(where, optics);
   const t2 = temperatureLimit * temperatureLimit;
-  return ASTRONOMICAL_UNIT.value * Math.sqrt((SOLAR_IRRADIANCE_1AU.value * absorbedOverEmitted(coneAngle, optics)) / (t2 * t2));
+  return (
+    ASTRONOMICAL_UNIT.value *
+    Math.sqrt((SOLAR_IRRADIANCE_1AU.value * absorbedOverEmitted(coneAngle, optics)) / (t2 * t2))
+  );
 }

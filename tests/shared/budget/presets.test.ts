@@ -67,7 +67,14 @@ describe('allowance presets', () => {
     });
 
     it('never grows the allowance as the design matures', () => {
-      const order = ['estimated', 'layout', 'pre_release_drawings', 'released_drawings', 'existing_hardware', 'measured'];
+      const order = [
+        'estimated',
+        'layout',
+        'pre_release_drawings',
+        'released_drawings',
+        'existing_hardware',
+        'measured',
+      ];
       for (const category of categories) {
         const column = order.map((maturity) => table[maturity]?.[category] ?? Number.NaN);
         column.slice(1).forEach((value, i) => expect(value).toBeLessThanOrEqual(column[i] ?? Number.NaN));

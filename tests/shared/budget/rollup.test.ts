@@ -36,7 +36,9 @@ describe('rollUpBudget', () => {
   });
 
   it('flags a margin below the required one, and a negative margin when over the allocation', () => {
-    expect(rollUpBudget(rows, esa, { allocation: 50, requiredMarginPercent: 25 }).systemMargin.belowRequired).toBe(true);
+    expect(
+      rollUpBudget(rows, esa, { allocation: 50, requiredMarginPercent: 25 }).systemMargin.belowRequired,
+    ).toBe(true);
     const over = rollUpBudget(rows, esa, { allocation: 35, requiredMarginPercent: 0 });
     expect(over.systemMargin.kg).toBeCloseTo(-4.25, 12);
     expect(over.systemMargin.belowRequired).toBe(true);
@@ -49,7 +51,10 @@ describe('rollUpBudget', () => {
   });
 
   it('names the row and field of an unknown maturity', () => {
-    const bad = [...rows, { key: 'sensor', subsystem: 'Payload', cbe: 1, maturity: 'layout', category: 'payload' }];
+    const bad = [
+      ...rows,
+      { key: 'sensor', subsystem: 'Payload', cbe: 1, maturity: 'layout', category: 'payload' },
+    ];
     expect(() => rollUpBudget(bad, esa, { allocation: 50 })).toThrow(BudgetInputError);
     expect(() => rollUpBudget(bad, esa, { allocation: 50 })).toThrow(
       /^rows\[3\] \('sensor'\)\.maturity: unknown maturity 'layout' in preset 'esa-margin'/,
@@ -58,12 +63,20 @@ describe('rollUpBudget', () => {
 
   it('names the row of a negative mass', () => {
     const bad = [{ ...rows[0], key: 'neg', cbe: -2 } as BudgetRowInput];
-    expect(() => rollUpBudget(bad, esa, { allocation: 50 })).toThrow(/rows\[0\] \('neg'\)\.cbe: must be a finite mass >= 0 kg, got -2/);
+    expect(() => rollUpBudget(bad, esa, { allocation: 50 })).toThrow(
+      /rows\[0\] \('neg'\)\.cbe: must be a finite mass >= 0 kg, got -2/,
+    );
   });
 
   it('names a duplicate key, a bad allocation and a bad required margin', () => {
-    expect(() => rollUpBudget([...rows, rows[0] as BudgetRowInput], esa, { allocation: 50 })).toThrow(/rows\[3\]\.key: duplicate key 'membrane'/);
-    expect(() => rollUpBudget(rows, esa, { allocation: 0 })).toThrow(/allocation: must be a finite mass > 0 kg, got 0/);
-    expect(() => rollUpBudget(rows, esa, { allocation: 50, requiredMarginPercent: -5 })).toThrow(/requiredMarginPercent: must be a percentage in \[0, 100\)/);
+    expect(() => rollUpBudget([...rows, rows[0] as BudgetRowInput], esa, { allocation: 50 })).toThrow(
+      /rows\[3\]\.key: duplicate key 'membrane'/,
+    );
+    expect(() => rollUpBudget(rows, esa, { allocation: 0 })).toThrow(
+      /allocation: must be a finite mass > 0 kg, got 0/,
+    );
+    expect(() => rollUpBudget(rows, esa, { allocation: 50, requiredMarginPercent: -5 })).toThrow(
+      /requiredMarginPercent: must be a percentage in \[0, 100\)/,
+    );
   });
 });

@@ -13,14 +13,20 @@ describe('validatePreset', () => {
   it('names a cell out of range', () => {
     const edited = { ...esa, table: { ...esa.table, modified: { ...esa.table.modified, harness: 1.5 } } };
     expect(validatePreset(edited)).toEqual([
-      { path: 'table.modified.harness', message: 'must be an allowance fraction in [0, 1] (0–100 %), got 1.5' },
+      {
+        path: 'table.modified.harness',
+        message: 'must be an allowance fraction in [0, 1] (0–100 %), got 1.5',
+      },
     ]);
   });
 
   it('names a missing cell, a missing row and an unknown row', () => {
     const { harness: _dropped, ...modifiedWithoutHarness } = esa.table.modified ?? {};
     const { new_design: _row, ...table } = esa.table;
-    const issues = validatePreset({ ...esa, table: { ...table, modified: modifiedWithoutHarness, typo: {} } });
+    const issues = validatePreset({
+      ...esa,
+      table: { ...table, modified: modifiedWithoutHarness, typo: {} },
+    });
     expect(issues.map((i) => i.path)).toEqual(['table.typo', 'table.modified.harness', 'table.new_design']);
     expect(issues[1]?.message).toMatch(/got nothing/);
   });

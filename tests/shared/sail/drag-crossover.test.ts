@@ -1,4 +1,8 @@
-import { US_STANDARD_1976_TABLE, VALLADO_EXPONENTIAL_TABLE, type DensityTable } from '@/shared/sail/atmosphere-density';
+import {
+  US_STANDARD_1976_TABLE,
+  VALLADO_EXPONENTIAL_TABLE,
+  type DensityTable,
+} from '@/shared/sail/atmosphere-density';
 import {
   atmosphericDensity,
   checkDensityTable,
@@ -22,24 +26,43 @@ describe('atmosphericDensity', () => {
   });
 
   it('interpolates log-linearly between rows', () => {
-    const midway = atmosphericDensity(450_000, { ...VALLADO_EXPONENTIAL_TABLE, points: VALLADO_EXPONENTIAL_TABLE.points.filter((p) => p.altitude !== 450_000) });
+    const midway = atmosphericDensity(450_000, {
+      ...VALLADO_EXPONENTIAL_TABLE,
+      points: VALLADO_EXPONENTIAL_TABLE.points.filter((p) => p.altitude !== 450_000),
+    });
     expect(midway / Math.sqrt(3.725e-12 * 6.967e-13)).toBeCloseTo(1, 12);
   });
 
   it('refuses an altitude outside the table', () => {
-    expect(() => atmosphericDensity(1_200_000)).toThrow(/atmosphericDensity: altitude must be in \[0, 1000000\] m/);
+    expect(() => atmosphericDensity(1_200_000)).toThrow(
+      /atmosphericDensity: altitude must be in \[0, 1000000\] m/,
+    );
     expect(() => atmosphericDensity(100_000, US_STANDARD_1976_TABLE)).toThrow(/altitude must be in \[150000/);
   });
 });
 
 describe('checkDensityTable', () => {
   it('names an out-of-order row', () => {
-    const bad: DensityTable = { ...US_STANDARD_1976_TABLE, points: [{ altitude: 2, density: 1 }, { altitude: 1, density: 1 }] };
-    expect(() => checkDensityTable(bad)).toThrow(/density table 'us-standard-1976': points\[1\].altitude must be above/);
+    const bad: DensityTable = {
+      ...US_STANDARD_1976_TABLE,
+      points: [
+        { altitude: 2, density: 1 },
+        { altitude: 1, density: 1 },
+      ],
+    };
+    expect(() => checkDensityTable(bad)).toThrow(
+      /density table 'us-standard-1976': points\[1\].altitude must be above/,
+    );
   });
 
   it('names a non-positive density', () => {
-    const bad: DensityTable = { ...US_STANDARD_1976_TABLE, points: [{ altitude: 1, density: 1 }, { altitude: 2, density: 0 }] };
+    const bad: DensityTable = {
+      ...US_STANDARD_1976_TABLE,
+      points: [
+        { altitude: 1, density: 1 },
+        { altitude: 2, density: 0 },
+      ],
+    };
     expect(() => checkDensityTable(bad)).toThrow(/points\[1\].density must be greater than 0/);
   });
 });
@@ -53,7 +76,10 @@ describe('circularOrbitSpeed and dragPressure', () => {
   it('is ½ ρ v^2 C_D', () => {
     const v = circularOrbitSpeed(500_000);
     expect(dragPressure(500_000) / (0.5 * 6.967e-13 * v * v * 2.2)).toBeCloseTo(1, 12);
-    expect(dragPressure(500_000, VALLADO_EXPONENTIAL_TABLE, 1.1) / dragPressure(500_000)).toBeCloseTo(0.5, 12);
+    expect(dragPressure(500_000, VALLADO_EXPONENTIAL_TABLE, 1.1) / dragPressure(500_000)).toBeCloseTo(
+      0.5,
+      12,
+    );
   });
 });
 
@@ -102,11 +128,15 @@ describe('dragCrossoverAltitude', () => {
     const result = dragCrossoverAltitude({ table: scaled(US_STANDARD_1976_TABLE, 1e-6) });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.reason).toMatch(/radiation pressure exceeds drag already at the bottom of table .* \(150 km\)/);
+    expect(result.reason).toMatch(
+      /radiation pressure exceeds drag already at the bottom of table .* \(150 km\)/,
+    );
   });
 
   it('names a bad drag coefficient or efficiency', () => {
-    expect(() => dragCrossoverAltitude({ dragCoefficient: -1 })).toThrow(/dragCrossoverAltitude: dragCoefficient/);
+    expect(() => dragCrossoverAltitude({ dragCoefficient: -1 })).toThrow(
+      /dragCrossoverAltitude: dragCoefficient/,
+    );
     expect(() => dragCrossoverAltitude({ efficiency: 0 })).toThrow(/dragCrossoverAltitude: efficiency/);
   });
 });

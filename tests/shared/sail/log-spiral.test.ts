@@ -12,7 +12,12 @@ const MU = SOLAR_GM.value;
 const alpha = IDEAL_BEST_TRANSVERSE_CONE_ANGLE;
 
 function transfer(beta: number, r0 = AU, r1 = 1.524 * AU, coneAngle = alpha) {
-  const result = logSpiralTransfer({ lightnessNumber: beta, coneAngle, departureRadius: r0, arrivalRadius: r1 });
+  const result = logSpiralTransfer({
+    lightnessNumber: beta,
+    coneAngle,
+    departureRadius: r0,
+    arrivalRadius: r1,
+  });
   if (!result.ok) throw new Error(result.reason);
   return result;
 }
@@ -22,7 +27,13 @@ function transfer(beta: number, r0 = AU, r1 = 1.524 * AU, coneAngle = alpha) {
  * spiral's own starting velocity and returns the time to reach r1: an independent check of the
  * closed-form time.
  */
-function integratedTime(beta: number, coneAngle: number, spiralAngle: number, r0: number, r1: number): number {
+function integratedTime(
+  beta: number,
+  coneAngle: number,
+  spiralAngle: number,
+  r0: number,
+  r1: number,
+): number {
   const ca = Math.cos(coneAngle);
   const sa = Math.sin(coneAngle);
   // McInnes 1999, ch. 4: on the spiral v^2 r = 2 β μ cos^2 α sin α / (sin γ cos γ)
@@ -61,8 +72,12 @@ describe('spiralLightnessNumber', () => {
   });
 
   it('names an out-of-range angle', () => {
-    expect(() => spiralLightnessNumber(0.1, 0)).toThrow(/spiralLightnessNumber: coneAngle must be in \(0, 1.57/);
-    expect(() => spiralLightnessNumber(-0.1, 0.5)).toThrow(/spiralLightnessNumber: spiralAngle must be in \[0/);
+    expect(() => spiralLightnessNumber(0.1, 0)).toThrow(
+      /spiralLightnessNumber: coneAngle must be in \(0, 1.57/,
+    );
+    expect(() => spiralLightnessNumber(-0.1, 0.5)).toThrow(
+      /spiralLightnessNumber: spiralAngle must be in \[0/,
+    );
   });
 });
 
@@ -87,7 +102,9 @@ describe('logSpiralTransfer', () => {
     // small-γ limit of McInnes 1999, ch. 4: tan γ ≈ γ ≈ 2 β cos^2 α sin α
     const beta = 1e-4;
     const ca = Math.cos(alpha);
-    const limit = (Math.pow(1.524 * AU, 1.5) - Math.pow(AU, 1.5)) / (3 * beta * ca * ca * Math.sin(alpha) * Math.sqrt(MU));
+    const limit =
+      (Math.pow(1.524 * AU, 1.5) - Math.pow(AU, 1.5)) /
+      (3 * beta * ca * ca * Math.sin(alpha) * Math.sqrt(MU));
     expect(transfer(beta).time / limit).toBeCloseTo(1, 3);
   });
 
@@ -105,7 +122,12 @@ describe('logSpiralTransfer', () => {
   it('reaches tan γ = √2 at the largest lightness number and refuses more', () => {
     const betaMax = largestSpiralLightnessNumber(alpha);
     expect(Math.tan(transfer(betaMax).spiralAngle)).toBeCloseTo(Math.SQRT2, 9);
-    const result = logSpiralTransfer({ lightnessNumber: betaMax * 1.01, coneAngle: alpha, departureRadius: AU, arrivalRadius: 2 * AU });
+    const result = logSpiralTransfer({
+      lightnessNumber: betaMax * 1.01,
+      coneAngle: alpha,
+      departureRadius: AU,
+      arrivalRadius: 2 * AU,
+    });
     expect(result.ok).toBe(false);
     if (result.ok) return;
     expect(result.reason).toMatch(/the largest for which a logarithmic spiral exists at cone angle 35.26°/);
@@ -114,8 +136,14 @@ describe('logSpiralTransfer', () => {
 
   it('throws a RangeError naming a negative distance or an impossible cone angle', () => {
     const input = { lightnessNumber: 0.1, coneAngle: alpha, departureRadius: AU, arrivalRadius: 2 * AU };
-    expect(() => logSpiralTransfer({ ...input, departureRadius: -AU })).toThrow(/logSpiralTransfer: departureRadius must be greater than 0/);
-    expect(() => logSpiralTransfer({ ...input, lightnessNumber: 0 })).toThrow(/logSpiralTransfer: lightnessNumber/);
-    expect(() => logSpiralTransfer({ ...input, coneAngle: Math.PI / 2 })).toThrow(/logSpiralTransfer: coneAngle must be in \(0/);
+    expect(() => logSpiralTransfer({ ...input, departureRadius: -AU })).toThrow(
+      /logSpiralTransfer: departureRadius must be greater than 0/,
+    );
+    expect(() => logSpiralTransfer({ ...input, lightnessNumber: 0 })).toThrow(
+      /logSpiralTransfer: lightnessNumber/,
+    );
+    expect(() => logSpiralTransfer({ ...input, coneAngle: Math.PI / 2 })).toThrow(
+      /logSpiralTransfer: coneAngle must be in \(0/,
+    );
   });
 });

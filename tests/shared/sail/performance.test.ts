@@ -35,15 +35,21 @@ describe('sizing figures', () => {
 
   it('the optical sail reaches 0.908 of the ideal characteristic acceleration', () => {
     // McInnes 1999 after Wright 1992 (from memory): F_n(0) / (2 P A) ≈ 0.908 with the tabulated coefficients
-    const ratio = opticalCharacteristicAcceleration(0.01, REFERENCE_SAIL_OPTICS) / characteristicAcceleration(0.01);
+    const ratio =
+      opticalCharacteristicAcceleration(0.01, REFERENCE_SAIL_OPTICS) / characteristicAcceleration(0.01);
     expect(ratio).toBeCloseTo(0.908, 3);
-    expect(() => opticalCharacteristicAcceleration(-1, REFERENCE_SAIL_OPTICS)).toThrow(/opticalCharacteristicAcceleration: loading/);
+    expect(() => opticalCharacteristicAcceleration(-1, REFERENCE_SAIL_OPTICS)).toThrow(
+      /opticalCharacteristicAcceleration: loading/,
+    );
   });
 
   it('a_c = β GM_sun / AU^2 inverts the lightness number', () => {
     // McInnes 1999, ch. 2: a_c = β GM_sun / r_E^2
     const au = ASTRONOMICAL_UNIT.value;
-    expect(characteristicAccelerationFromLightness(0.17)).toBeCloseTo((0.17 * SOLAR_GM.value) / (au * au), 15);
+    expect(characteristicAccelerationFromLightness(0.17)).toBeCloseTo(
+      (0.17 * SOLAR_GM.value) / (au * au),
+      15,
+    );
     expect(lightnessNumber(characteristicAccelerationFromLightness(0.17))).toBeCloseTo(0.17, 12);
   });
 
@@ -56,7 +62,9 @@ describe('sizing figures', () => {
     expect(() => sailLoading(10, 0)).toThrow(/sailLoading: area must be greater than 0, got 0/);
     expect(() => sailLoading(-1, 10)).toThrow(/sailLoading: mass must not be negative/);
     expect(() => characteristicAcceleration(0)).toThrow(/characteristicAcceleration: loading/);
-    expect(() => lightnessNumber(Number.NaN)).toThrow(/lightnessNumber: acceleration must be a finite number, got NaN/);
+    expect(() => lightnessNumber(Number.NaN)).toThrow(
+      /lightnessNumber: acceleration must be a finite number, got NaN/,
+    );
     expect(() => criticalSailLoading(0)).toThrow(/criticalSailLoading: efficiency must be in \(0, 1\]/);
   });
 });

@@ -20,10 +20,13 @@ describe('radiationPressure', () => {
     expect(radiationPressure(0.5 * AU) / radiationPressure(AU)).toBeCloseTo(4, 12);
   });
 
-  it.each([0, -AU, Number.NaN, Number.POSITIVE_INFINITY])('refuses distance %p with a RangeError naming it', (d) => {
-    expect(() => radiationPressure(d)).toThrow(RangeError);
-    expect(() => radiationPressure(d)).toThrow(/radiationPressure: distance/);
-  });
+  it.each([0, -AU, Number.NaN, Number.POSITIVE_INFINITY])(
+    'refuses distance %p with a RangeError naming it',
+    (d) => {
+      expect(() => radiationPressure(d)).toThrow(RangeError);
+      expect(() => radiationPressure(d)).toThrow(/radiationPressure: distance/);
+    },
+  );
 });
 
 describe('solarIrradiance and solarGravity', () => {

@@ -36,10 +36,17 @@ describe('performanceVersusConeAngle', () => {
 describe('performanceVersusDistance', () => {
   it('follows the inverse square of distance', () => {
     // McInnes 1999, ch. 2: P(r) ∝ 1 / r^2
-    const series = performanceVersusDistance({ model: optical, area: 100, mass: 1 }, 0.3, [AU, 2 * AU, 4 * AU]);
+    const series = performanceVersusDistance({ model: optical, area: 100, mass: 1 }, 0.3, [
+      AU,
+      2 * AU,
+      4 * AU,
+    ]);
     const [near, mid, far] = series;
     expect((mid?.acceleration ?? 0) / (near?.acceleration ?? 1)).toBeCloseTo(0.25, 12);
-    expect((far?.circumferentialAcceleration ?? 0) / (near?.circumferentialAcceleration ?? 1)).toBeCloseTo(1 / 16, 12);
+    expect((far?.circumferentialAcceleration ?? 0) / (near?.circumferentialAcceleration ?? 1)).toBeCloseTo(
+      1 / 16,
+      12,
+    );
     expect(near?.radialAcceleration).toBeCloseTo(sailForce(optical, 100, 0.3, AU).radial, 15);
   });
 
@@ -66,6 +73,8 @@ describe('bestTransverseConeAngle', () => {
   });
 
   it('refuses an ideal sail of zero efficiency', () => {
-    expect(() => bestTransverseConeAngle({ kind: 'ideal', efficiency: 0 })).toThrow(/efficiency must be greater than 0/);
+    expect(() => bestTransverseConeAngle({ kind: 'ideal', efficiency: 0 })).toThrow(
+      /efficiency must be greater than 0/,
+    );
   });
 });

@@ -19,7 +19,9 @@ describe('sailTemperature', () => {
   });
 
   it('refuses an edge-on or back-lit sail and a bad distance', () => {
-    expect(() => sailTemperature(AU, Math.PI / 2, REFERENCE_SAIL_OPTICS)).toThrow(/sailTemperature: coneAngle must be in \(-1.57\d+, 1.57\d+\) rad, got 1.57/);
+    expect(() => sailTemperature(AU, Math.PI / 2, REFERENCE_SAIL_OPTICS)).toThrow(
+      /sailTemperature: coneAngle must be in \(-1.57\d+, 1.57\d+\) rad, got 1.57/,
+    );
     expect(() => sailTemperature(-AU, 0, REFERENCE_SAIL_OPTICS)).toThrow(/distance must be greater than 0/);
   });
 });
@@ -51,6 +53,8 @@ describe('closestSafeDistance', () => {
   });
 
   it('names a bad limit', () => {
-    expect(() => closestSafeDistance(0, 0, REFERENCE_SAIL_OPTICS)).toThrow(/closestSafeDistance: temperatureLimit must be greater than 0/);
+    expect(() => closestSafeDistance(0, 0, REFERENCE_SAIL_OPTICS)).toThrow(
+      /closestSafeDistance: temperatureLimit must be greater than 0/,
+    );
   });
 });
