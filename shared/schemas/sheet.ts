@@ -10,7 +10,7 @@ export function parameterKeyProblem(key: string): string | undefined {
     return 'must be snake_case: a lower-case letter, then lower-case letters, digits or underscores';
   }
   if (/^[a-z]+[0-9]+$/.test(key)) return 'reads as an A1 cell reference (letters then digits)';
-  if (/^r[0-9]*c?[0-9]*$/.test(key) || /^c[0-9]*$/.test(key)) return 'reads as an R1C1 cell reference';
+  if (/^r[0-9]*c[0-9]*$/.test(key)) return 'reads as an R1C1 cell reference';
   if (key === 'true' || key === 'false') return 'is a logical constant';
   return undefined;
 }

@@ -1,0 +1,122 @@
+import convert from 'convert-units';
+import { create, all } from 'mathjs';
+import { HyperFormula } from 'hyperformula';
+import { formatDimension, fromSI, normalizeUnitText, parseQuantity, parseUnit, toSI } from '@/shared/engine/units';
+import { hyperFormulaConfig } from '@/shared/engine/hyperformula-cells';
+import { parameterKeyProblem } from '@/shared/schemas/sheet';
+
+const math = create({ ...all });
+
+function si(value: number, unit: string): number {
+  const parsed = parseUnit(unit);
+  if (!parsed.ok) throw new Error(parsed.message);
+  return toSI(value, parsed.value);
+}
+
+describe('units', () => {
+  // Each pair: our unit text, convert-units' name of the same unit, its SI unit in convert-units.
+  it.each([
+    ['mm', 'mm', 'm'],
+    ['km', 'km', 'm'],
+    ['ft', 'ft', 'm'],
+    ['mi', 'mi', 'm'],
+    ['g', 'g', 'kg'],
+    ['mg', 'mg', 'kg'],
+    ['lb', 'lb', 'kg'],
+    ['tonne', 'mt', 'kg'],
+    ['cm^2', 'cm2', 'm2'],
+    ['hectare', 'ha', 'm2'],
+    ['km^2', 'km2', 'm2'],
+    ['L', 'l', 'm3'],
+    ['cm^3', 'cm3', 'm3'],
+    ['deg', 'deg', 'rad'],
+    ['arcmin', 'arcmin', 'rad'],
+    ['km/h', 'km/h', 'm/s'],
+    ['kPa', 'kPa', 'Pa'],
+    ['psi', 'psi', 'Pa'],
+    ['kW', 'kW', 'W'],
+  ])('converts %s to SI as convert-units does', (ours, theirs, siName) => {
+    const reference = convert(3.7).from(theirs as never).to(siName as never);
+    // convert-units rounds its imperial factors to about 6 digits (1 ft = 1/3.28084 m); mathjs uses the exact ones.
+    expect(Math.abs(si(3.7, ours) - reference)).toBeLessThanOrEqual(1e-6 * Math.abs(reference));
+  });
+
+  it('converts temperatures with their offsets as convert-units does', () => {
+    expect(si(400, 'degC')).toBeCloseTo(convert(400).from('C').to('K'), 9);
+    expect(si(212, 'degF')).toBeCloseTo(convert(212).from('F').to('K'), 9);
+    const degC = parseUnit('degC');
+    if (!degC.ok) throw new Error(degC.message);
+    expect(fromSI(673.15, degC.value)).toBeCloseTo(400, 9);
+  });
+
+  // mathjs is the reference for compound units: our factor must equal its own conversion.
+  it.each(['um', 'nm', 'g/m', 'g/m^2', 'kg/m^3', 'mm/s^2', 'W/m^2', 'W/(m^2 K^4)', 'm^3/s^2', 'N', 'uN', 'kJ', 'h', 'day'])(
+    'converts %s to SI as mathjs does',
+    (unit) => {
+      expect(si(2.5, unit)).toBeCloseTo(math.unit(2.5, unit).toSI().toNumber(), 15);
+    },
+  );
+
+  it('defines the astronomical unit (IAU 2012 Resolution B2: 149 597 870 700 m exactly)', () => {
+    expect(si(1, 'AU')).toBe(149_597_870_700);
+  });
+
+  it('defines percent and ppm as pure numbers', () => {
+    expect(si(15, 'percent')).toBeCloseTo(0.15, 15);
+    expect(si(3, 'ppm')).toBeCloseTo(3e-6, 20);
+    expect(formatDimension(dimensionOf('percent'))).toBe('dimensionless');
+  });
+
+  it('normalises what engineers type', () => {
+    expect(normalizeUnitText(' µm ')).toBe('um');
+    expect(normalizeUnitText('kg·m²/s³')).toBe('kg m^2/s^3');
+    expect(si(2, 'μm')).toBeCloseTo(2e-6, 18);
+  });
+
+  it('names dimensions in SI base units', () => {
+    expect(formatDimension(dimensionOf('N'))).toBe('kg m s^-2');
+    expect(formatDimension(dimensionOf('W/(m^2 K^4)'))).toBe('kg s^-3 K^-4');
+    expect(formatDimension(dimensionOf(''))).toBe('dimensionless');
+    expect(formatDimension(dimensionOf('deg'))).toBe('rad');
+  });
+
+  it('refuses unknown units with a message naming the unit', () => {
+    const parsed = parseUnit('furlong per fortnight');
+    expect(parsed.ok).toBe(false);
+    if (!parsed.ok) expect(parsed.message).toMatch(/^unknown unit "furlong per fortnight"/);
+  });
+
+  it('parses quantities with and without a unit', () => {
+    expect(parseQuantity('60 m')).toMatchObject({ ok: true, value: { value: 60 } });
+    expect(parseQuantity('-2.5e-3')).toEqual({ ok: true, value: { value: -0.0025, unit: undefined } });
+    expect(parseQuantity('2.5um')).toMatchObject({ ok: true, value: { value: 2.5 } });
+    expect(parseQuantity('sixty').ok).toBe(false);
+    expect(parseQuantity('3 parsec-ish').ok).toBe(false);
+  });
+});
+
+describe('parameter keys', () => {
+  // HyperFormula is the judge of which names are usable as spreadsheet names.
+  const hf = HyperFormula.buildEmpty(hyperFormulaConfig(1));
+  afterAll(() => hf.destroy());
+
+  it.each(['sail_side', 'boom_count', 'solar_irradiance_1au', 'film_thickness', 'x', 'rate_1', 'area', 'r', 'c', 'rx'])('accepts %s, as HyperFormula does', (key) => {
+    expect(parameterKeyProblem(key)).toBeUndefined();
+    expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(true);
+  });
+
+  it.each(['boom2', 'r1', 'rc', 'c2', 'r1c1', 'rc3', 'ab12', 'log10'])('refuses %s, which HyperFormula reads as a cell reference', (key) => {
+    expect(parameterKeyProblem(key)).toBeDefined();
+    expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(false);
+  });
+
+  it.each(['Sail_side', '1abc', 'sail-side', 'sail side', ''])('refuses %s, which is not snake_case', (key) => {
+    expect(parameterKeyProblem(key)).toMatch(/snake_case/);
+  });
+});
+
+function dimensionOf(unit: string): readonly number[] {
+  const parsed = parseUnit(unit);
+  if (!parsed.ok) throw new Error(parsed.message);
+  return parsed.value.dimension;
+}
