@@ -1,3 +1,4 @@
+import { configure } from '@testing-library/dom';
 import { act, type ComponentType, type ReactNode } from 'react';
 import { createRoot, type Root } from 'react-dom/client';
 import { ExpoRoot } from 'expo-router';
@@ -5,7 +6,27 @@ import { getMockContext } from 'expo-router/build/testing-library/mock-config';
 
 // react-native-web renders DOM elements, so these tests render with react-dom into jsdom and query the DOM
 // with @testing-library/dom; the react-native testing library only recognises native host components.
-(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
+// Events run inside act(); while a query waits, act is off so that React Query's async updates render
+// as in a browser (the same arrangement @testing-library/react makes).
+const actGlobal = globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean };
+actGlobal.IS_REACT_ACT_ENVIRONMENT = true;
+configure({
+  eventWrapper: (dispatch) => {
+    let result: unknown;
+    act(() => {
+      result = dispatch();
+    });
+    return result;
+  },
+  asyncWrapper: async (wait) => {
+    actGlobal.IS_REACT_ACT_ENVIRONMENT = false;
+    try {
+      return await wait();
+    } finally {
+      actGlobal.IS_REACT_ACT_ENVIRONMENT = true;
+    }
+  },
+});
 
 let mounted: { root: Root; container: HTMLElement }[] = [];
 
