@@ -2,7 +2,7 @@ import { generateKeyPairSync, randomBytes } from 'node:crypto';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import express, { type ErrorRequestHandler, type Request, type Response } from 'express';
-import Provider, { errors, interactionPolicy, type Configuration, type JWK } from 'oidc-provider';
+import { Provider, errors, interactionPolicy, type Configuration, type JWK } from 'oidc-provider';
 import { demoPeople, type DemoPerson } from '@/server/seed/demo-scenario';
 
 export interface OidcFakeOptions {

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { Identity, Invitation, Organisation, User } from '@/server/models';
 import { demoOrganisations, demoPeople } from '@/server/seed/demo-scenario';
-import { callbackFromFake, signIn } from '../helpers/sign-in';
+import { callbackFromFake, locationOf, signIn } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let testApp: TestApp;
@@ -23,8 +23,7 @@ function person(subject: string) {
 async function finishAt(subject: string, provider: 'google' | 'sso') {
   const agent = request.agent(testApp.app);
   const callback = await callbackFromFake(agent, subject, provider);
-  const response = await agent.get(callback).expect(302);
-  return { agent, location: response.headers.location };
+  return { agent, location: locationOf(await agent.get(callback).expect(302)) };
 }
 
 describe('first sign-in of a demo person', () => {

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { demoPeople } from '@/server/seed/demo-scenario';
-import { signIn, type Provider } from '../helpers/sign-in';
+import { locationOf, signIn, type Provider } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let testApp: TestApp;
@@ -24,8 +24,7 @@ describe.each<Provider>(['google', 'sso'])('signing in with %s', (provider) => {
 
 describe.each<Provider>(['google', 'sso'])('the %s authorization request', (provider) => {
   it('asks for an authorization code with PKCE (S256), a state and the OpenID scopes', async () => {
-    const start = await request(testApp.app).get(`/api/auth/${provider}`).expect(302);
-    const params = new URL(start.headers.location).searchParams;
+    const params = new URL(locationOf(await request(testApp.app).get(`/api/auth/${provider}`).expect(302))).searchParams;
     expect(Object.fromEntries(params)).toEqual(
       expect.objectContaining({
         response_type: 'code',
@@ -41,7 +40,7 @@ describe.each<Provider>(['google', 'sso'])('the %s authorization request', (prov
 
 describe('the company SSO authorization request', () => {
   it('also carries a nonce for the ID token', async () => {
-    const start = await request(testApp.app).get('/api/auth/sso').expect(302);
-    expect(new URL(start.headers.location).searchParams.get('nonce')).toMatch(/.{16,}/);
+    const start = locationOf(await request(testApp.app).get('/api/auth/sso').expect(302));
+    expect(new URL(start).searchParams.get('nonce')).toMatch(/.{16,}/);
   });
 });

@@ -4,7 +4,7 @@ import request from 'supertest';
 import { createApp } from '@/server/app';
 import type { Config } from '@/server/env';
 import { createMailer, type Mailer } from '@/server/services/mailer';
-import { callbackFromFake, type Agent, type Provider } from '../helpers/sign-in';
+import { callbackFromFake, locationOf, type Agent, type Provider } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let testApp: TestApp;
@@ -30,10 +30,7 @@ function appWith(change: (config: Config) => Config): Express {
   return createApp({ config, sequelize: testApp.sequelize, mailer });
 }
 
-async function landing(agent: Agent, path: string) {
-  const response = await agent.get(path).expect(302);
-  return response.headers.location;
-}
+const landing = async (agent: Agent, path: string) => locationOf(await agent.get(path).expect(302));
 
 describe.each<Provider>(['google', 'sso'])('a %s callback that does not belong to the sign-in', (provider) => {
   it('is refused with state_mismatch when the state was altered', async () => {
@@ -55,18 +52,8 @@ describe.each<Provider>(['google', 'sso'])('a %s callback that does not belong t
 describe('cancelling at the provider', () => {
   it('comes back as access_denied', async () => {
     const agent = request.agent(testApp.app);
-    const start = await agent.get('/api/auth/sso').expect(302);
-    const atFake = await fetch(start.headers.location, { redirect: 'manual' });
-    const interaction = new URL(atFake.headers.get('location') ?? '', start.headers.location);
-    const cookie = atFake.headers
-      .getSetCookie()
-      .map((line) => line.split(';')[0])
-      .join('; ');
-    const cancelled = await fetch(new URL(`${interaction.pathname}/cancel`, interaction), { method: 'POST', redirect: 'manual', headers: { cookie } });
-    const resumed = await fetch(new URL(cancelled.headers.get('location') ?? '', interaction), { redirect: 'manual', headers: { cookie } });
-    const callback = new URL(resumed.headers.get('location') ?? '');
-    expect(callback.pathname).toBe('/api/auth/sso/callback');
-    expect(await landing(agent, `${callback.pathname}${callback.search}`)).toBe('/sign-in?error=access_denied');
+    const callback = await callbackFromFake(agent, 'cancel', 'sso');
+    expect(await landing(agent, callback)).toBe('/sign-in?error=access_denied');
   });
 });
 

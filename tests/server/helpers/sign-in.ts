@@ -4,6 +4,13 @@ import request from 'supertest';
 export type Provider = 'google' | 'sso';
 export type Agent = ReturnType<typeof request.agent>;
 
+/** Where a redirect response points; fails the test when it is not a redirect. */
+export function locationOf(response: request.Response): string {
+  const location: unknown = response.headers.location;
+  if (typeof location !== 'string') throw new Error(`expected a redirect, got ${response.status} without a Location`);
+  return location;
+}
+
 /** The sign-in fake's cookies, kept by hand because its pages are fetched outside the app's agent. */
 class CookieJar {
   private readonly cookies = new Map<string, string>();
@@ -46,29 +53,32 @@ async function followAtFake(jar: CookieJar, first: Response, from: string, callb
 }
 
 /**
- * Starts a sign-in with the app's agent, chooses the person on the fake's login page and returns the
- * callback address (path and query) the fake sends the browser back to, without visiting it.
+ * Starts a sign-in with the app's agent, chooses the person on the fake's login page (or presses Cancel
+ * when `subject` is 'cancel') and returns the callback address (path and query) the fake sends the
+ * browser back to, without visiting it.
  */
 export async function callbackFromFake(agent: Agent, subject: string, provider: Provider): Promise<string> {
-  const start = await agent.get(`/api/auth/${provider}`).expect(302);
-  const authorizationUrl = start.headers.location;
-  if (!authorizationUrl?.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${String(authorizationUrl)}, not to the provider`);
+  const authorizationUrl = locationOf(await agent.get(`/api/auth/${provider}`).expect(302));
+  if (!authorizationUrl.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
   const callbackPath = `/api/auth/${provider}/callback`;
   const jar = new CookieJar();
 
   const loginPage = await followAtFake(jar, await visit(jar, authorizationUrl), authorizationUrl, callbackPath);
   const html = await loginPage.response.text();
-  const action = /<form method="post" action="([^"]+\/login)"/.exec(html)?.[1];
-  if (loginPage.response.status !== 200 || !action) throw new Error(`the fake did not show its login page (${loginPage.response.status}): ${html.slice(0, 300)}`);
-  if (!html.includes(`data-testid="person-${subject}"`)) throw new Error(`the fake's login page offers no person ${subject}`);
+  const button = subject === 'cancel' ? 'data-testid="cancel"' : `data-testid="person-${subject}"`;
+  const form = html.split('<form').find((part) => part.includes(button));
+  const action = form && /method="post" action="([^"]+)"/.exec(form)?.[1];
+  if (loginPage.response.status !== 200 || !action) {
+    throw new Error(`the fake's login page (${loginPage.response.status}) has no ${button}: ${html.slice(0, 300)}`);
+  }
 
-  const loginUrl = new URL(action, loginPage.url).href;
-  const chosen = await visit(jar, loginUrl, {
+  const formUrl = new URL(action, loginPage.url).href;
+  const chosen = await visit(jar, formUrl, {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams({ subject }).toString(),
+    body: new URLSearchParams(subject === 'cancel' ? {} : { subject }).toString(),
   });
-  const back = await followAtFake(jar, chosen, loginUrl, callbackPath);
+  const back = await followAtFake(jar, chosen, formUrl, callbackPath);
   const callback = new URL(back.url);
   if (callback.pathname !== callbackPath) throw new Error(`the fake ended at ${back.url} (${back.response.status}), not at ${callbackPath}`);
   return `${callback.pathname}${callback.search}`;
@@ -81,10 +91,8 @@ export async function callbackFromFake(agent: Agent, subject: string, provider: 
 export async function signIn(app: Express, subject: string, provider: Provider): Promise<{ agent: Agent; csrfToken: string }> {
   const agent = request.agent(app);
   const callback = await callbackFromFake(agent, subject, provider);
-  const finished = await agent.get(callback);
-  if (finished.status !== 302 || finished.headers.location !== '/crafts') {
-    throw new Error(`signing ${subject} in with ${provider} ended at ${finished.status} ${String(finished.headers.location)}`);
-  }
+  const landing = locationOf(await agent.get(callback).expect(302));
+  if (landing !== '/crafts') throw new Error(`signing ${subject} in with ${provider} ended at ${landing}`);
   const session = await agent.get('/api/auth/session').expect(200);
   return { agent, csrfToken: session.body.csrfToken as string };
 }
