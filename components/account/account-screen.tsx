@@ -3,6 +3,7 @@ import { useSessionUser, useSignOut } from '@/components/auth/queries';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FormError } from '@/components/ui/form';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
@@ -29,13 +30,15 @@ export function AccountScreen() {
       <Card>
         <AppText variant="heading">Sign out</AppText>
         <AppText variant="muted">“Sign out everywhere” ends your sessions on every device and browser.</AppText>
-        {signOut.isError ? (
-          <AppText variant="error" role="alert">
-            {signOut.error.message}
-          </AppText>
-        ) : null}
+        <FormError message={signOut.error?.message} />
         <View style={styles.actions}>
-          <Button label="Sign out" busy={scope === 'this-session'} disabled={signOut.isPending} onPress={() => signOut.mutate('this-session')} testID="sign-out" />
+          <Button
+            label="Sign out"
+            busy={scope === 'this-session'}
+            disabled={signOut.isPending}
+            onPress={() => signOut.mutate('this-session')}
+            testID="sign-out"
+          />
           <Button
             label="Sign out everywhere"
             tone="secondary"

@@ -85,7 +85,11 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   const parsed = schema.safeParse(payload);
   if (!parsed.success) {
     const where = parsed.error.issues[0]?.path.join('.') || '(root)';
-    throw new ApiError(response.status, 'unexpected_response', `The server's answer to ${method} ${path} was not understood at "${where}".`);
+    throw new ApiError(
+      response.status,
+      'unexpected_response',
+      `The server's answer to ${method} ${path} was not understood at "${where}".`,
+    );
   }
   return parsed.data as Result<S>;
 }

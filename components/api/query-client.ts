@@ -18,7 +18,10 @@ export function createQueryClient(options: { retry?: boolean } = {}): QueryClien
     }),
     defaultOptions: {
       queries: {
-        retry: options.retry === false ? false : (count, error) => !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
+        retry:
+          options.retry === false
+            ? false
+            : (count, error) => !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
         staleTime: 30_000,
       },
     },

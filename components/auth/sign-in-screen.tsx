@@ -41,7 +41,9 @@ export function SignInScreen({ error }: SignInScreenProps) {
       <Card style={styles.card}>
         <SailMark size={56} />
         <AppText variant="display">Trimsheet</AppText>
-        <AppText variant="muted">Sizing sheets and mass budgets for solar-sail spacecraft, kept in revisions your whole team can trust.</AppText>
+        <AppText variant="muted">
+          Sizing sheets and mass budgets for solar-sail spacecraft, kept in revisions your whole team can trust.
+        </AppText>
         {error ? (
           <View style={styles.error} role="alert" testID="sign-in-error">
             <AppText variant="error">{describeSignInError(error)}</AppText>

@@ -1,17 +1,12 @@
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
-import { applyServerErrors, FormTextField, zodResolver } from '@/components/ui/form';
-import { AppText } from '@/components/ui/text';
+import { FormError, FormTextField, useSchemaForm } from '@/components/ui/form';
 import { space } from '@/components/ui/theme';
 import { createCraftBodySchema, type CreateCraftBody } from '@/shared/schemas/crafts';
 
-type CraftFormValues = z.input<typeof createCraftBodySchema>;
-
 export type CraftFormProps = {
-  initialValues?: CraftFormValues;
+  initialValues?: z.input<typeof createCraftBodySchema>;
   submitLabel: string;
   /** Saves the values; a rejection with field details puts them beside the fields. */
   onSubmit: (body: CreateCraftBody) => Promise<unknown>;
@@ -22,38 +17,32 @@ export type CraftFormProps = {
   testID: string;
 };
 
-const fields = ['name', 'description'] as const;
-
 /** Name and description of a craft, for creating one or editing one. */
-export function CraftForm({ initialValues = { name: '', description: '' }, submitLabel, onSubmit, onSaved, onCancel, testID }: CraftFormProps) {
-  const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, reset, formState } = useForm<CraftFormValues, unknown, CreateCraftBody>({
-    resolver: zodResolver(createCraftBodySchema),
+export function CraftForm({
+  initialValues = { name: '', description: '' },
+  submitLabel,
+  onSubmit,
+  onSaved,
+  onCancel,
+  testID,
+}: CraftFormProps) {
+  const { control, submit, formError, isSubmitting } = useSchemaForm({
+    schema: createCraftBodySchema,
     defaultValues: initialValues,
-  });
-
-  const submit = handleSubmit(async (body) => {
-    setFormError(null);
-    try {
+    fields: ['name', 'description'],
+    onValid: async (body) => {
       await onSubmit(body);
-      reset(initialValues);
       onSaved?.();
-    } catch (error) {
-      setFormError(applyServerErrors(error, fields, setError));
-    }
+    },
   });
 
   return (
     <View style={styles.form}>
       <FormTextField control={control} name="name" label="Name" testID={`${testID}-name`} autoCapitalize="words" />
       <FormTextField control={control} name="description" label="Description" testID={`${testID}-description`} multiline />
-      {formError ? (
-        <AppText variant="error" role="alert">
-          {formError}
-        </AppText>
-      ) : null}
+      <FormError message={formError} />
       <View style={styles.actions}>
-        <Button label={submitLabel} busy={formState.isSubmitting} onPress={() => void submit()} testID={`${testID}-submit`} />
+        <Button label={submitLabel} busy={isSubmitting} onPress={submit} testID={`${testID}-submit`} />
         {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}
       </View>
     </View>

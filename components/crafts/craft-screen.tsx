@@ -86,7 +86,15 @@ function CraftSummary({ craft, canEdit }: { craft: Craft; canEdit: boolean }) {
       <AppText variant="mono">
         Created {craft.createdAt.slice(0, 10)} · updated {craft.updatedAt.slice(0, 10)}
       </AppText>
-      {canEdit ? <Button label="Edit name and description" tone="secondary" style={styles.start} onPress={() => setEditing(true)} testID="edit-craft" /> : null}
+      {canEdit ? (
+        <Button
+          label="Edit name and description"
+          tone="secondary"
+          style={styles.start}
+          onPress={() => setEditing(true)}
+          testID="edit-craft"
+        />
+      ) : null}
     </Card>
   );
 }

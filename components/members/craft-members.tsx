@@ -63,7 +63,12 @@ function MemberRow({ craftId, member, canManage }: { craftId: string; member: Me
       {canManage && mode === 'view' ? (
         <View style={styles.actions}>
           <Button label="Change role" tone="secondary" aria-label={`Change role of ${member.name}`} onPress={() => setMode('edit')} />
-          <Button label="Remove" tone="quiet" aria-label={`Remove ${member.name} from this craft`} onPress={() => setMode('confirm-remove')} />
+          <Button
+            label="Remove"
+            tone="quiet"
+            aria-label={`Remove ${member.name} from this craft`}
+            onPress={() => setMode('confirm-remove')}
+          />
         </View>
       ) : null}
       {mode === 'edit' ? (
@@ -81,7 +86,12 @@ function MemberRow({ craftId, member, canManage }: { craftId: string; member: Me
       ) : null}
       {mode === 'confirm-remove' ? (
         <View style={styles.actions}>
-          <Button label={`Remove ${member.name}`} tone="danger" busy={removeMember.isPending} onPress={() => removeMember.mutate(member.userId)} />
+          <Button
+            label={`Remove ${member.name}`}
+            tone="danger"
+            busy={removeMember.isPending}
+            onPress={() => removeMember.mutate(member.userId)}
+          />
           <Button label="Keep" tone="quiet" onPress={() => setMode('view')} />
           {removeMember.isError ? <AppText variant="error">{removeMember.error.message}</AppText> : null}
         </View>

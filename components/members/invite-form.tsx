@@ -1,38 +1,25 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
-import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
-import { applyServerErrors, FormTextField, zodResolver } from '@/components/ui/form';
+import { FormError, FormTextField, useSchemaForm } from '@/components/ui/form';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
-import { inviteBodySchema, type InviteBody } from '@/shared/schemas/organisation';
+import { inviteBodySchema } from '@/shared/schemas/organisation';
 import { useInvitePerson } from './queries';
-
-type InviteValues = z.input<typeof inviteBodySchema>;
-const fields = ['name', 'email'] as const;
-const empty: InviteValues = { name: '', email: '' };
 
 /** Invites a person to the organisation by name and e-mail; errors appear beside the field at fault. */
 export function InviteForm() {
   const invite = useInvitePerson();
-  const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const { control, handleSubmit, setError, reset, formState } = useForm<InviteValues, unknown, InviteBody>({
-    resolver: zodResolver(inviteBodySchema),
-    defaultValues: empty,
-  });
-
-  const submit = handleSubmit(async (body) => {
-    setFormError(null);
-    setSentTo(null);
-    try {
+  const { control, submit, formError, isSubmitting } = useSchemaForm({
+    schema: inviteBodySchema,
+    defaultValues: { name: '', email: '' },
+    fields: ['name', 'email'],
+    onValid: async (body) => {
+      setSentTo(null);
       const invitation = await invite.mutateAsync(body);
-      reset(empty);
       setSentTo(invitation.email);
-    } catch (error) {
-      setFormError(applyServerErrors(error, fields, setError));
-    }
+    },
   });
 
   return (
@@ -47,13 +34,9 @@ export function InviteForm() {
         autoCapitalize="none"
         autoComplete="email"
       />
-      {formError ? (
-        <AppText variant="error" role="alert">
-          {formError}
-        </AppText>
-      ) : null}
+      <FormError message={formError} />
       {sentTo ? <AppText role="status">Invitation sent to {sentTo}.</AppText> : null}
-      <Button label="Send invitation" busy={formState.isSubmitting} onPress={() => void submit()} style={styles.start} testID="invite-submit" />
+      <Button label="Send invitation" busy={isSubmitting} onPress={submit} style={styles.start} testID="invite-submit" />
     </View>
   );
 }

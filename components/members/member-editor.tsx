@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/components/api/client';
 import { Button } from '@/components/ui/button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
+import { FormError } from '@/components/ui/form';
 import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
@@ -48,7 +49,16 @@ export type MemberEditorProps = {
 };
 
 /** Role and (for subsystem owners) subsystems of one craft member. */
-export function MemberEditor({ initialRole, initialSubsystems = [], submitLabel, onSubmit, onCancel, blockedReason, children, testID }: MemberEditorProps) {
+export function MemberEditor({
+  initialRole,
+  initialSubsystems = [],
+  submitLabel,
+  onSubmit,
+  onCancel,
+  blockedReason,
+  children,
+  testID,
+}: MemberEditorProps) {
   const [role, setRole] = useState<CraftRole | null>(initialRole ?? null);
   const [subsystems, setSubsystems] = useState(initialSubsystems.join(', '));
   const [errors, setErrors] = useState<Errors>({});
@@ -56,7 +66,10 @@ export function MemberEditor({ initialRole, initialSubsystems = [], submitLabel,
 
   const submit = async () => {
     if (blockedReason) return setErrors({ form: blockedReason });
-    const parsed = setMemberBodySchema.safeParse({ role: role ?? undefined, subsystems: role === 'subsystem_owner' ? parseSubsystems(subsystems) : [] });
+    const parsed = setMemberBodySchema.safeParse({
+      role: role ?? undefined,
+      subsystems: role === 'subsystem_owner' ? parseSubsystems(subsystems) : [],
+    });
     if (!parsed.success) {
       const next: Errors = {};
       for (const issue of parsed.error.issues) {
@@ -91,11 +104,7 @@ export function MemberEditor({ initialRole, initialSubsystems = [], submitLabel,
           testID={`${testID}-subsystems`}
         />
       ) : null}
-      {errors.form ? (
-        <AppText variant="error" role="alert">
-          {errors.form}
-        </AppText>
-      ) : null}
+      <FormError message={errors.form} />
       <View style={styles.actions}>
         <Button label={submitLabel} busy={busy} onPress={() => void submit()} testID={`${testID}-submit`} />
         {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}

@@ -30,7 +30,11 @@ export function PeopleScreen() {
       {organisation.isPending ? (
         <LoadingState label="Loading people…" />
       ) : organisation.isError ? (
-        <ErrorState title="Could not load the organisation" message={organisation.error.message} onRetry={() => void organisation.refetch()} />
+        <ErrorState
+          title="Could not load the organisation"
+          message={organisation.error.message}
+          onRetry={() => void organisation.refetch()}
+        />
       ) : (
         <>
           <DividedList testID="people-list">

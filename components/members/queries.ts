@@ -18,14 +18,18 @@ export const organisationKeys = {
 };
 
 /** The members of one craft. */
-export const memberListOptions = (craftId: string) => queryOptions({ queryKey: memberKeys.list(craftId), queryFn: () => listMembers(craftId) });
+export const memberListOptions = (craftId: string) =>
+  queryOptions({ queryKey: memberKeys.list(craftId), queryFn: () => listMembers(craftId) });
 
 /** The caller's organisation, people and invitations. */
 export const organisationOptions = () => queryOptions({ queryKey: organisationKeys.detail(), queryFn: getOrganisation });
 
 /** A membership change can change the caller's own role on the craft, so crafts refresh with members. */
 function invalidateMemberships(queryClient: QueryClient) {
-  return Promise.all([queryClient.invalidateQueries({ queryKey: memberKeys.all }), queryClient.invalidateQueries({ queryKey: craftKeys.all })]);
+  return Promise.all([
+    queryClient.invalidateQueries({ queryKey: memberKeys.all }),
+    queryClient.invalidateQueries({ queryKey: craftKeys.all }),
+  ]);
 }
 
 /** Adds a person to a craft or changes their role and subsystems. */
@@ -60,6 +64,10 @@ export function useSetOrgAdmin() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ userId, isOrgAdmin }: { userId: string; isOrgAdmin: boolean }) => setOrgAdmin(userId, isOrgAdmin),
-    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: organisationKeys.all }), queryClient.invalidateQueries({ queryKey: sessionKeys.all })]),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: organisationKeys.all }),
+        queryClient.invalidateQueries({ queryKey: sessionKeys.all }),
+      ]),
   });
 }

@@ -107,7 +107,16 @@ const styles = StyleSheet.create({
   },
   sideItemFocused: { backgroundColor: 'rgba(245, 241, 232, 0.12)' },
   sideLabel: { fontFamily: fonts.medium },
-  bottomItem: { flex: 1, minHeight: 56, borderTopWidth: 3, borderTopColor: 'transparent', alignItems: 'center', justifyContent: 'center', gap: 2, paddingVertical: space.xs },
+  bottomItem: {
+    flex: 1,
+    minHeight: 56,
+    borderTopWidth: 3,
+    borderTopColor: 'transparent',
+    alignItems: 'center',
+    justifyContent: 'center',
+    gap: 2,
+    paddingVertical: space.xs,
+  },
   bottomItemFocused: { borderTopColor: colors.accent },
   bottomLabel: { fontFamily: fonts.medium, fontSize: 12, lineHeight: 16 },
 });

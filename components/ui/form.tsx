@@ -1,6 +1,18 @@
-import { Controller, type Control, type FieldErrors, type FieldPath, type FieldValues, type Resolver, type UseFormSetError } from 'react-hook-form';
+import { useState } from 'react';
+import {
+  Controller,
+  useForm,
+  type Control,
+  type DefaultValues,
+  type FieldErrors,
+  type FieldPath,
+  type FieldValues,
+  type Resolver,
+  type UseFormSetError,
+} from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiError } from '@/components/api/client';
+import { AppText } from './text';
 import { TextField, type TextFieldProps } from './text-field';
 
 /** The form field a schema issue or a server detail belongs to: its first path segment after "body". */
@@ -30,7 +42,11 @@ export function zodResolver<S extends z.ZodType<FieldValues, FieldValues>>(schem
  * Puts the server's field errors (`details: [{ path: "body.email", message }]`) beside the matching
  * fields. Returns the message for whatever could not be placed on a field, or null when all were placed.
  */
-export function applyServerErrors<T extends FieldValues>(error: unknown, fields: readonly FieldPath<T>[], setError: UseFormSetError<T>): string | null {
+export function applyServerErrors<T extends FieldValues>(
+  error: unknown,
+  fields: readonly FieldPath<T>[],
+  setError: UseFormSetError<T>,
+): string | null {
   if (!(error instanceof ApiError)) return error instanceof Error ? error.message : String(error);
   let unplaced = error.fieldErrors.length === 0;
   for (const detail of error.fieldErrors) {
@@ -63,4 +79,46 @@ export function FormTextField<T extends FieldValues>({ control, name, ...props }
       )}
     />
   );
+}
+
+export type SchemaFormOptions<S extends z.ZodType<FieldValues, FieldValues>> = {
+  schema: S;
+  defaultValues: DefaultValues<z.input<S>>;
+  /** The fields a server error may name; other server errors become the form error. */
+  fields: readonly FieldPath<z.input<S>>[];
+  /** Sends the parsed values; the form resets to its defaults when this resolves. */
+  onValid: (values: z.output<S>) => Promise<unknown>;
+};
+
+/**
+ * A react-hook-form form validated by a shared zod schema whose submit puts server field errors beside
+ * their fields and any other failure into `formError`.
+ */
+export function useSchemaForm<S extends z.ZodType<FieldValues, FieldValues>>({
+  schema,
+  defaultValues,
+  fields,
+  onValid,
+}: SchemaFormOptions<S>) {
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<z.input<S>, unknown, z.output<S>>({ resolver: zodResolver(schema), defaultValues });
+  const submit = form.handleSubmit(async (values) => {
+    setFormError(null);
+    try {
+      await onValid(values);
+      form.reset(defaultValues);
+    } catch (error) {
+      setFormError(applyServerErrors(error, fields, form.setError));
+    }
+  });
+  return { control: form.control, submit: () => void submit(), formError, isSubmitting: form.formState.isSubmitting };
+}
+
+/** The error of a whole form (what no single field can show), announced when it appears. */
+export function FormError({ message }: { message: string | null | undefined }) {
+  return message ? (
+    <AppText variant="error" role="alert">
+      {message}
+    </AppText>
+  ) : null;
 }

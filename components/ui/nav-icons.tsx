@@ -6,7 +6,17 @@ export type NavIconName = 'crafts' | 'people' | 'account';
 /** Line icons for the navigation, drawn in the given colour. */
 export function NavIcon({ name, color, size = 22 }: { name: NavIconName; color: string; size?: number }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" fill="none" stroke={color} strokeWidth={1.8} strokeLinecap="round" strokeLinejoin="round" aria-hidden>
+    <Svg
+      width={size}
+      height={size}
+      viewBox="0 0 24 24"
+      fill="none"
+      stroke={color}
+      strokeWidth={1.8}
+      strokeLinecap="round"
+      strokeLinejoin="round"
+      aria-hidden
+    >
       {name === 'crafts' ? <Path d="M5 5 L20 3 L18 19 L3 21 Z M5 5 L18 19 M20 3 L3 21" /> : null}
       {name === 'people' ? (
         <>

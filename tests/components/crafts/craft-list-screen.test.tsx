@@ -36,7 +36,9 @@ describe('CraftListScreen', () => {
   });
 
   it('shows the server message when the crafts cannot be loaded, and tries again on request', async () => {
-    const fetchMock = mockFetch({ 'GET /api/crafts': { status: 500, body: { error: { code: 'internal', message: 'Database unavailable' } } } });
+    const fetchMock = mockFetch({
+      'GET /api/crafts': { status: 500, body: { error: { code: 'internal', message: 'Database unavailable' } } },
+    });
     renderList();
     await screen.findByText('Could not load the crafts');
     expect(screen.getByText('Database unavailable')).toBeTruthy();
@@ -46,7 +48,17 @@ describe('CraftListScreen', () => {
   });
 
   it('lists each craft with its name, description and the caller’s role, linking to the craft', async () => {
-    mockFetch({ 'GET /api/crafts': { status: 200, body: { crafts: [craft, { ...craft, id: '7d6c5b4a-3e2f-4a1b-8c9d-0e1f2a3b4c5d', name: 'Heliopause scout', description: '', myRole: null }] } } });
+    mockFetch({
+      'GET /api/crafts': {
+        status: 200,
+        body: {
+          crafts: [
+            craft,
+            { ...craft, id: '7d6c5b4a-3e2f-4a1b-8c9d-0e1f2a3b4c5d', name: 'Heliopause scout', description: '', myRole: null },
+          ],
+        },
+      },
+    });
     renderList();
     const list = screen.getByTestId('craft-list');
     const card = await within(list).findByTestId(`craft-card-${craft.id}`);
@@ -61,7 +73,16 @@ describe('CraftListScreen', () => {
     const fetchMock = mockFetch({
       'GET /api/crafts': { status: 200, body: { crafts: [craft] } },
       'GET /api/auth/session': { status: 200, body: { user: demoUser, csrfToken: 'test-csrf-token', providers: [] } },
-      'POST /api/crafts': { status: 400, body: { error: { code: 'invalid_input', message: 'Invalid input', details: [{ path: 'body.name', message: 'a craft with this name already exists' }] } } },
+      'POST /api/crafts': {
+        status: 400,
+        body: {
+          error: {
+            code: 'invalid_input',
+            message: 'Invalid input',
+            details: [{ path: 'body.name', message: 'a craft with this name already exists' }],
+          },
+        },
+      },
     });
     renderList();
     fireEvent.click(screen.getByRole('button', { name: 'New craft' }));

@@ -40,7 +40,12 @@ export function mockFetch(routes: Record<string, Route>) {
     const route = routes[`${method} ${input}`];
     if (route === 'pending') return new Promise<Response>(() => undefined);
     const body: unknown = typeof init?.body === 'string' ? JSON.parse(init.body) : undefined;
-    const reply = route === undefined ? { status: 404, body: { error: { code: 'not_found', message: `no mock for ${method} ${input}` } } } : typeof route === 'function' ? route(body) : route;
+    const reply =
+      route === undefined
+        ? { status: 404, body: { error: { code: 'not_found', message: `no mock for ${method} ${input}` } } }
+        : typeof route === 'function'
+          ? route(body)
+          : route;
     return {
       ok: reply.status >= 200 && reply.status < 300,
       status: reply.status,
@@ -52,7 +57,10 @@ export function mockFetch(routes: Record<string, Route>) {
 }
 
 /** A fresh query client (retries off) with the session already known, and a wrapper providing it. */
-export function setupQueryClient(user: SessionUser | null = demoUser): { queryClient: QueryClient; wrapper: (props: { children: ReactNode }) => ReactNode } {
+export function setupQueryClient(user: SessionUser | null = demoUser): {
+  queryClient: QueryClient;
+  wrapper: (props: { children: ReactNode }) => ReactNode;
+} {
   const queryClient = createQueryClient({ retry: false });
   queryClient.setQueryData(sessionKeys.all, demoSession(user));
   const wrapper = ({ children }: { children: ReactNode }) => (

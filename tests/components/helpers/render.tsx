@@ -52,7 +52,11 @@ export function renderDom(ui: ReactNode): HTMLElement {
  * Renders an in-memory expo-router app (route name → component, as files under app/ would be) at a URL,
  * inside the given providers.
  */
-export function renderRoutes(routes: Record<string, ComponentType>, initialUrl: string, Wrapper: ComponentType<{ children: ReactNode }>): HTMLElement {
+export function renderRoutes(
+  routes: Record<string, ComponentType>,
+  initialUrl: string,
+  Wrapper: ComponentType<{ children: ReactNode }>,
+): HTMLElement {
   process.env.EXPO_ROUTER_IMPORT_MODE = 'sync';
   const context = getMockContext(Object.fromEntries(Object.entries(routes).map(([name, component]) => [name, { default: component }])));
   return renderDom(

@@ -24,7 +24,13 @@ describe('InviteForm', () => {
       'GET /api/auth/session': { status: 200, body: demoSession(demoUser) },
       'POST /api/organisation/invitations': {
         status: 409,
-        body: { error: { code: 'conflict', message: 'Already invited', details: [{ path: 'body.email', message: 'this person is already invited' }] } },
+        body: {
+          error: {
+            code: 'conflict',
+            message: 'Already invited',
+            details: [{ path: 'body.email', message: 'this person is already invited' }],
+          },
+        },
       },
     });
     renderForm();
@@ -49,7 +55,13 @@ describe('InviteForm', () => {
       'GET /api/auth/session': { status: 200, body: demoSession(demoUser) },
       'POST /api/organisation/invitations': (body) => ({
         status: 201,
-        body: { id: '5e4d3c2b-1a09-4f8e-9d7c-6b5a4f3e2d1c', ...(body as object), invitedBy: demoUser.name, createdAt: '2026-12-01T10:00:00.000Z', acceptedAt: null },
+        body: {
+          id: '5e4d3c2b-1a09-4f8e-9d7c-6b5a4f3e2d1c',
+          ...(body as object),
+          invitedBy: demoUser.name,
+          createdAt: '2026-12-01T10:00:00.000Z',
+          acceptedAt: null,
+        },
       }),
     });
     renderForm();
