@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { StyleSheet, Switch, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { useSessionUser } from '@/components/auth/queries';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
@@ -7,7 +7,8 @@ import { DividedList } from '@/components/ui/divided-list';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
-import { colors, space } from '@/components/ui/theme';
+import { Toggle } from '@/components/ui/toggle';
+import { space } from '@/components/ui/theme';
 import type { Invitation, Person } from '@/shared/schemas/organisation';
 import { InviteForm } from './invite-form';
 import { organisationOptions, useSetOrgAdmin } from './queries';
@@ -68,7 +69,6 @@ export function PeopleScreen() {
 
 function PersonRow({ person }: { person: Person }) {
   const setOrgAdmin = useSetOrgAdmin();
-  const label = `Organisation admin: ${person.name}`;
   return (
     <View style={styles.row} testID={`person-${person.id}`}>
       <View style={styles.who}>
@@ -78,13 +78,11 @@ function PersonRow({ person }: { person: Person }) {
       </View>
       <View style={styles.toggle}>
         <AppText variant="label">Admin</AppText>
-        <Switch
-          aria-label={label}
+        <Toggle
+          label={`Organisation admin: ${person.name}`}
           value={person.isOrgAdmin}
           disabled={setOrgAdmin.isPending}
-          onValueChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
-          trackColor={{ true: colors.accent, false: colors.border }}
-          thumbColor={colors.surface}
+          onChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
           testID={`person-${person.id}-admin`}
         />
       </View>
