@@ -1,11 +1,11 @@
+import type { Request } from 'express';
 import * as oidc from 'openid-client';
 import { Strategy as OidcStrategy, type AuthenticateOptions } from 'openid-client/passport';
-import type { Request } from 'express';
 import { Strategy as GoogleStrategy } from 'passport-google-oauth20';
 import { z } from 'zod';
 import type { Config } from '../env';
-import type { Passport } from './session';
 import { findUserForSignIn, type SignInProvider } from '../services/sign-in';
+import type { Passport } from './session';
 
 /** Why a sign-in ended on the sign-in page; the client shows a message for each. */
 export const signInErrorCodes = [

@@ -12,7 +12,7 @@ export function locationOf(response: request.Response): string {
 }
 
 /** The sign-in fake's cookies, kept by hand because its pages are fetched outside the app's agent. */
-class CookieJar {
+export class CookieJar {
   private readonly cookies = new Map<string, string>();
 
   header() {
@@ -53,16 +53,11 @@ async function followAtFake(jar: CookieJar, first: Response, from: string, callb
 }
 
 /**
- * Starts a sign-in with the app's agent, chooses the person on the fake's login page (or presses Cancel
- * when `subject` is 'cancel') and returns the callback address (path and query) the fake sends the
- * browser back to, without visiting it.
+ * At the fake, from an authorization request: opens the login page, chooses the person (or presses Cancel
+ * when `subject` is 'cancel') and follows the fake's redirects until they point at `callbackPath`.
+ * Returns that callback URL without visiting it.
  */
-export async function callbackFromFake(agent: Agent, subject: string, provider: Provider): Promise<string> {
-  const authorizationUrl = locationOf(await agent.get(`/api/auth/${provider}`).expect(302));
-  if (!authorizationUrl.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
-  const callbackPath = `/api/auth/${provider}/callback`;
-  const jar = new CookieJar();
-
+export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, subject: string, callbackPath: string): Promise<URL> {
   const loginPage = await followAtFake(jar, await visit(jar, authorizationUrl), authorizationUrl, callbackPath);
   const html = await loginPage.response.text();
   const button = subject === 'cancel' ? 'data-testid="cancel"' : `data-testid="person-${subject}"`;
@@ -81,6 +76,17 @@ export async function callbackFromFake(agent: Agent, subject: string, provider: 
   const back = await followAtFake(jar, chosen, formUrl, callbackPath);
   const callback = new URL(back.url);
   if (callback.pathname !== callbackPath) throw new Error(`the fake ended at ${back.url} (${back.response.status}), not at ${callbackPath}`);
+  return callback;
+}
+
+/**
+ * Starts a sign-in with the app's agent, makes the choice at the fake (see chooseAtFake) and returns the
+ * callback address (path and query) the fake sends the browser back to, without visiting it.
+ */
+export async function callbackFromFake(agent: Agent, subject: string, provider: Provider): Promise<string> {
+  const authorizationUrl = locationOf(await agent.get(`/api/auth/${provider}`).expect(302));
+  if (!authorizationUrl.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
+  const callback = await chooseAtFake(new CookieJar(), authorizationUrl, subject, `/api/auth/${provider}/callback`);
   return `${callback.pathname}${callback.search}`;
 }
 
