@@ -49,11 +49,12 @@ function expression(node: FormulaNode, indexOf: ReadonlyMap<string, number>): st
     case 'call': {
       const fn = FUNCTION_NAMES.indexOf(node.name);
       const first = node.args[0];
-      if (node.name === 'PREDICTED' && first?.kind === 'ref') {
-        const index = indexOf.get(first.key) ?? -1;
-        return `f[${fn}](v[${index}],a[${index}])`;
-      }
-      return `f[${fn}](${node.args.map((arg) => expression(arg, indexOf)).join(',')})`;
+      const args =
+        node.name === 'PREDICTED' && first?.kind === 'ref'
+          ? [`v[${indexOf.get(first.key) ?? -1}]`, `a[${indexOf.get(first.key) ?? -1}]`]
+          : node.args.map((arg) => expression(arg, indexOf));
+      const inline = sheetFunctions[node.name]?.inline;
+      return inline === undefined ? `f[${fn}](${args.join(',')})` : inline(args);
     }
   }
 }
