@@ -28,6 +28,13 @@ configure({
   },
 });
 
+// jsdom has no ResizeObserver; the stack navigator's web frame listener needs one (it never fires here).
+globalThis.ResizeObserver ??= class {
+  observe() {}
+  unobserve() {}
+  disconnect() {}
+};
+
 let mounted: { root: Root; container: HTMLElement }[] = [];
 
 afterEach(() => {
