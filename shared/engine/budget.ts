@@ -1,0 +1,47 @@
+import { rollUpBudget } from '@/shared/budget/rollup';
+import { BudgetInputError, type BudgetRollUp, type BudgetRowInput } from '@/shared/budget/types';
+import type { Sheet } from '@/shared/schemas/sheet';
+import type { AnalysisResult } from '@/shared/engine/analyses';
+import { rowError, type EngineError } from '@/shared/engine/errors';
+import type { Evaluation } from '@/shared/engine/evaluate';
+import { sheetPreset } from '@/shared/engine/sheet-model';
+import { MASS, formatDimension, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
+
+/** The row that holds the craft's mass allocation, by the template's convention. */
+export const MASS_ALLOCATION_KEY = 'mass_allocation';
+
+/**
+ * The mass budget of an evaluated sheet: every row with a maturity and category is a budget line
+ * (its value as current best estimate, in kg), rolled up with the sheet's allowance preset
+ * against the allocation row, with the sheet's required margin (or the preset's).
+ */
+export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey = MASS_ALLOCATION_KEY): AnalysisResult<BudgetRollUp> {
+  const errors: EngineError[] = [];
+  const inKilograms = (key: string): number | undefined => {
+    const parameter = sheet.parameters.find((candidate) => candidate.key === key);
+    const value = evaluation.values[key];
+    const unit = parameter === undefined ? undefined : parseUnit(parameter.unit);
+    if (parameter === undefined) errors.push(rowError(key, 'unknown_key', 'no row has this key'));
+    else if (value === undefined || unit === undefined || !unit.ok) errors.push(rowError(key, 'dependency_error', 'has no value, so the budget cannot be rolled up'));
+    else if (!sameDimension(unit.value.dimension, MASS)) errors.push(rowError(key, 'dimension_mismatch', `a budget row must be a mass, its unit is ${formatDimension(unit.value.dimension)}`));
+    else return toSI(value.value, unit.value);
+    return undefined;
+  };
+  const rows: BudgetRowInput[] = sheet.parameters.flatMap((parameter) => {
+    if (parameter.mass === undefined) return [];
+    const cbe = inKilograms(parameter.key);
+    return cbe === undefined ? [] : [{ key: parameter.key, subsystem: parameter.subsystem, cbe, ...parameter.mass }];
+  });
+  const allocation = inKilograms(allocationKey);
+  const preset = sheetPreset(sheet.budget);
+  if (!preset.ok) errors.push(rowError('', 'budget_error', preset.message));
+  if (errors.length > 0 || allocation === undefined || !preset.ok) return { ok: false, errors };
+  try {
+    const requiredMarginPercent = sheet.budget?.requiredMarginPercent;
+    return { ok: true, result: rollUpBudget(rows, preset.value, requiredMarginPercent === undefined ? { allocation } : { allocation, requiredMarginPercent }) };
+  } catch (error) {
+    if (!(error instanceof BudgetInputError)) throw error;
+    const row = /\('([^']*)'\)/.exec(error.path)?.[1] ?? (error.path === 'allocation' ? allocationKey : '');
+    return { ok: false, errors: [rowError(row, 'budget_error', error.message)] };
+  }
+}
