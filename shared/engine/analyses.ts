@@ -1,3 +1,4 @@
+import { bisect, linspace } from '@/shared/sail/numeric';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { compileSheet, type CompiledSheet } from '@/shared/engine/compile';
 import { rowError, type EngineError } from '@/shared/engine/errors';
@@ -87,9 +88,7 @@ function axisPoints(sheet: Sheet, axis: SweepAxis): { ok: true; values: Float64A
   if (!from.ok) return from;
   const to = valueInRowUnit(parameter, axis.to);
   if (!to.ok) return to;
-  const values = new Float64Array(axis.steps);
-  for (let step = 0; step < axis.steps; step += 1) values[step] = from.value + ((to.value - from.value) * step) / (axis.steps - 1);
-  return { ok: true, values };
+  return { ok: true, values: Float64Array.from(linspace(from.value, to.value, axis.steps)) };
 }
 
 /** Runs a compiled sheet over `points` points; `setInputs` places the SI inputs of each point. Outputs come back in their units. */
@@ -192,8 +191,6 @@ export type GoalSeekResult =
   | { readonly status: 'solved'; readonly input: RowValue; readonly output: RowValue }
   | { readonly status: 'no_solution'; readonly message: string };
 
-const BISECTIONS = 200;
-
 /**
  * Goal seek by scanning the range for a sign change of output − target, then bisecting.
  * The answer is checked by evaluating the sheet with HyperFormula at the value found; the output
@@ -241,31 +238,13 @@ function findRoot(points: Float64Array, residual: (x: number) => number): number
     const next = residuals[index + 1] ?? Number.NaN;
     const nextX = points[index + 1] ?? Number.NaN;
     if (!Number.isFinite(here) || !Number.isFinite(next) || Math.sign(here) === Math.sign(next)) continue;
-    const root = bisect(x, here, nextX, residual);
+    // Tolerance 0: refine down to adjacent doubles.
+    const root = bisect(residual, x, nextX, 0);
     // A sign change across a pole is no root: the residual there stays large.
     const scale = Math.max(Math.abs(here), Math.abs(next));
     if (Math.abs(residual(root)) <= 1e-9 * scale || Math.abs(residual(root)) < 1e-12) return root;
   }
   return undefined;
-}
-
-function bisect(low: number, lowResidual: number, high: number, residual: (x: number) => number): number {
-  let a = low;
-  let b = high;
-  let fa = lowResidual;
-  for (let iteration = 0; iteration < BISECTIONS; iteration += 1) {
-    const middle = (a + b) / 2;
-    if (middle === a || middle === b) break;
-    const fm = residual(middle);
-    if (fm === 0) return middle;
-    if (Math.sign(fm) === Math.sign(fa)) {
-      a = middle;
-      fa = fm;
-    } else {
-      b = middle;
-    }
-  }
-  return Math.abs(residual(a)) <= Math.abs(residual(b)) ? a : b;
 }
 
 function noSolutionMessage(

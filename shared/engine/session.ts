@@ -63,7 +63,8 @@ export function valueInRowUnit(parameter: Parameter, value: number | string): { 
       `unit "${parameter.unit}" expects ${formatDimension(own.value.dimension)} but "${String(value)}" is ${formatDimension(given.dimension)}`,
     );
   }
-  return { ok: true, value: fromSI(toSI(quantity.value.value, given), own.value) };
+  const converted = fromSI(toSI(quantity.value.value, given), own.value);
+  return Number.isFinite(converted) ? { ok: true, value: converted } : fail('invalid_value', `"${String(value)}" is out of range in ${parameter.unit}`);
 }
 
 function sameMass(a: Parameter['mass'], b: Parameter['mass']): boolean {
