@@ -1,6 +1,10 @@
 // Two projects: node for shared/ and server/, jest-expo for components/.
 const esmOnly = ['openid-client', 'oidc-provider', 'jose', 'oauth4webapi', 'quick-lru', 'nanoid'];
 const alias = { '^@/(.*)$': '<rootDir>/$1' };
+const transformIgnorePatterns = [`node_modules/(?!(${esmOnly.join('|')})/)`];
+const tsJest = {
+  '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', esModuleInterop: true, isolatedModules: true }, diagnostics: false }],
+};
 
 module.exports = {
   projects: [
@@ -10,10 +14,8 @@ module.exports = {
       roots: ['<rootDir>/tests/shared', '<rootDir>/tests/server'],
       testMatch: ['**/*.test.ts'],
       moduleNameMapper: alias,
-      transform: {
-        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', esModuleInterop: true, isolatedModules: true }, diagnostics: false }],
-      },
-      transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
+      transform: tsJest,
+      transformIgnorePatterns,
     },
     {
       displayName: 'components',
@@ -29,9 +31,8 @@ module.exports = {
       testMatch: ['**/*.test.ts'],
       moduleNameMapper: alias,
       testTimeout: 120000,
-      transform: {
-        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', esModuleInterop: true, isolatedModules: true }, diagnostics: false }],
-      },
+      transform: tsJest,
+      transformIgnorePatterns,
     },
   ],
 };

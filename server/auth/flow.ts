@@ -8,7 +8,8 @@ import type { User } from '../models';
 import type { SignInProvider } from '../services/sign-in';
 import type { Csrf } from './csrf';
 import type { Passport } from './session';
-import type { SignInErrorCode, SignInRefusal } from './strategies';
+import type { SignInErrorCode } from '@/shared/schemas/session';
+import type { SignInRefusal } from './strategies';
 
 const providers: SessionResponse['providers'] = [
   { id: 'google', label: 'Google', startUrl: '/api/auth/google' },

@@ -6,7 +6,6 @@ import { authRouter } from './router';
 import { createPassport, sessionMiddleware } from './session';
 import { googleStrategy, ssoStrategyLoader } from './strategies';
 
-export type { SignInErrorCode } from './strategies';
 
 export interface Auth {
   /** Session cookie and passport, in order; mount after cookie-parser and before every route. */

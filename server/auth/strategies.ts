@@ -5,17 +5,8 @@ import { Strategy as GoogleStrategy } from 'passport-google-oauth20';
 import { z } from 'zod';
 import type { Config } from '../env';
 import { findUserForSignIn, type SignInProvider } from '../services/sign-in';
+import type { SignInErrorCode } from '@/shared/schemas/session';
 import type { Passport } from './session';
-
-/** Why a sign-in ended on the sign-in page (`/sign-in?error=<code>`); the client shows a message for each. */
-export type SignInErrorCode =
-  | 'no_account'
-  | 'email_not_verified'
-  | 'missing_email'
-  | 'state_mismatch'
-  | 'access_denied'
-  | 'provider_error'
-  | 'too_many_requests';
 
 /** The `info` a strategy passes when it refuses a sign-in it understood. */
 export interface SignInRefusal {

@@ -19,13 +19,13 @@ export type CraftList = z.infer<typeof craftListSchema>;
 
 export const craftParamsSchema = z.object({ craftId: idSchema });
 
-export const createCraftBodySchema = z.object({
-  name: textLine(120),
-  description: z.string().trim().max(2000, { message: 'must be at most 2000 characters' }).default(''),
-});
+const craftName = textLine(120);
+const craftDescription = z.string().trim().max(2000, { message: 'must be at most 2000 characters' });
+
+export const createCraftBodySchema = z.object({ name: craftName, description: craftDescription.default('') });
 export type CreateCraftBody = z.infer<typeof createCraftBodySchema>;
 
-export const updateCraftBodySchema = createCraftBodySchema.partial().refine((body) => Object.keys(body).length > 0, {
-  message: 'give at least one of name, description',
-});
+export const updateCraftBodySchema = z
+  .object({ name: craftName.optional(), description: craftDescription.optional() })
+  .refine((body) => body.name !== undefined || body.description !== undefined, { message: 'give at least one of name, description' });
 export type UpdateCraftBody = z.infer<typeof updateCraftBodySchema>;

@@ -17,3 +17,16 @@ export const sessionResponseSchema = z.object({
   providers: z.array(z.object({ id: z.enum(['google', 'sso']), label: z.string(), startUrl: z.string() })),
 });
 export type SessionResponse = z.infer<typeof sessionResponseSchema>;
+
+/** Why a sign-in ended back on the sign-in page (`/sign-in?error=<code>`); the client shows a message for each. */
+export const signInErrorCodes = [
+  'no_account',
+  'email_not_verified',
+  'missing_email',
+  'state_mismatch',
+  'access_denied',
+  'provider_error',
+  'too_many_requests',
+] as const;
+export const signInErrorCodeSchema = z.enum(signInErrorCodes);
+export type SignInErrorCode = z.infer<typeof signInErrorCodeSchema>;
