@@ -38,7 +38,7 @@ export function CraftForm({
 
   return (
     <View style={styles.form}>
-      <FormTextField control={control} name="name" label="Name" testID={`${testID}-name`} autoCapitalize="words" />
+      <FormTextField control={control} name="name" label="Name" testID={`${testID}-name`} autoCapitalize="words" onSubmitEditing={submit} />
       <FormTextField control={control} name="description" label="Description" testID={`${testID}-description`} multiline />
       <FormError message={formError} />
       <View style={styles.actions}>

@@ -33,6 +33,7 @@ export function InviteForm() {
         keyboardType="email-address"
         autoCapitalize="none"
         autoComplete="email"
+        onSubmitEditing={submit}
       />
       <FormError message={formError} />
       {sentTo ? <AppText role="status">Invitation sent to {sentTo}.</AppText> : null}

@@ -64,6 +64,19 @@ describe('the session guard in the root layout', () => {
     );
   });
 
+  it('returns to sign-in when a request finds the session ended elsewhere (401)', async () => {
+    let signedIn = true;
+    mockFetch({
+      'GET /api/auth/session': () => ({ status: 200, body: demoSession(signedIn ? demoUser : null) }),
+      'GET /api/crafts': () => {
+        signedIn = false;
+        return { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in first.' } } };
+      },
+    });
+    renderRoutes(appRoutes, '/crafts', Bare);
+    expect(await screen.findByTestId('sign-in-google')).toBeTruthy();
+  });
+
   it('says so, and offers to try again, when the session cannot be fetched', async () => {
     mockFetch({ 'GET /api/auth/session': { status: 503, body: { error: { code: 'unavailable', message: 'Server is starting' } } } });
     renderRoutes(appRoutes, '/', Bare);
