@@ -69,6 +69,7 @@ function prepare(sheet: Sheet, inputKeys: readonly string[], outputKeys: readonl
     if (index === undefined || row === undefined) errors.push(rowError(key, 'unknown_key', `no row has this key, so it cannot be an ${role}`));
     else if (problem !== undefined) errors.push(problem);
     else if (role === 'input' && row.formula !== undefined) errors.push(rowError(key, 'invalid_argument', 'is a formula, not an input, so it cannot be swept'));
+    else if (role === 'input' && row.parameter.protected === true) errors.push(rowError(key, 'protected', 'the row is protected, so it cannot be swept'));
     else if (row.unit !== undefined) return { key, index, unit: row.unit, unitText: row.parameter.unit };
     return undefined;
   };

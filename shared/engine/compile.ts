@@ -1,7 +1,7 @@
 import type { Sheet } from '@/shared/schemas/sheet';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import type { FormulaNode } from '@/shared/engine/formula-parser';
-import { sheetFunctions } from '@/shared/engine/functions';
+import { applyArithmetic, sheetFunctions } from '@/shared/engine/functions';
 import { analyseSheet, rowStates, type SheetAnalysis } from '@/shared/engine/sheet-model';
 import { applyOverrides, type Evaluation, type Overrides } from '@/shared/engine/evaluate';
 import { fromSI } from '@/shared/engine/units';
@@ -12,7 +12,8 @@ import { fromSI } from '@/shared/engine/units';
  * from the tree: row indices, numbers re-printed by the engine, fixed operators and indices into
  * a fixed table of functions. No text the user typed ever reaches the generated source.
  * Statements are split into functions of at most STATEMENTS_PER_CHUNK, because V8 does not
- * optimise one huge function.
+ * optimise one huge function. Where a content security policy forbids generated code (no
+ * 'unsafe-eval'), the same trees are evaluated through closures instead: slower, same results.
  */
 const STATEMENTS_PER_CHUNK = 200;
 
@@ -59,14 +60,75 @@ function expression(node: FormulaNode, indexOf: ReadonlyMap<string, number>): st
   }
 }
 
-function compileChunks(statements: readonly string[]): Chunk[] {
+function compileChunks(statements: readonly string[], allowances: Float64Array): Runner {
   const chunks: Chunk[] = [];
   for (let start = 0; start < statements.length; start += STATEMENTS_PER_CHUNK) {
     const body = `"use strict";${statements.slice(start, start + STATEMENTS_PER_CHUNK).join('\n')}`;
     // The body is generated from parsed trees only (see the note at the top of this file).
     chunks.push(new Function('v', 'f', 'a', body) as Chunk);
   }
-  return chunks;
+  return (values) => {
+    for (const chunk of chunks) chunk(values, FUNCTION_TABLE, allowances);
+  };
+}
+
+type Closure = (values: Float64Array) => number;
+type Runner = (values: Float64Array) => void;
+
+function closureOf(node: FormulaNode, indexOf: ReadonlyMap<string, number>, allowances: Float64Array): Closure {
+  switch (node.kind) {
+    case 'number': {
+      const value = node.value;
+      return () => value;
+    }
+    case 'ref': {
+      const index = indexOf.get(node.key) ?? -1;
+      return (values) => values[index] ?? Number.NaN;
+    }
+    case 'unary': {
+      const operand = closureOf(node.operand, indexOf, allowances);
+      return node.op === '-' ? (values) => -operand(values) : operand;
+    }
+    case 'percent': {
+      const operand = closureOf(node.operand, indexOf, allowances);
+      return (values) => operand(values) / 100;
+    }
+    case 'binary': {
+      const { op } = node;
+      const left = closureOf(node.left, indexOf, allowances);
+      const right = closureOf(node.right, indexOf, allowances);
+      return (values) => applyArithmetic(op, left(values), right(values));
+    }
+    case 'call': {
+      const evaluate = sheetFunctions[node.name]?.evaluate ?? (() => Number.NaN);
+      const first = node.args[0];
+      if (node.name === 'PREDICTED' && first?.kind === 'ref') {
+        const index = indexOf.get(first.key) ?? -1;
+        return (values) => evaluate(values[index] ?? Number.NaN, allowances[index] ?? Number.NaN);
+      }
+      const args = node.args.map((arg) => closureOf(arg, indexOf, allowances));
+      return (values) => evaluate(...args.map((arg) => arg(values)));
+    }
+  }
+}
+
+let generatedCodeAllowed: boolean | undefined;
+
+/** Whether this JavaScript environment runs generated functions (a strict content security policy forbids them). */
+function generatedCodeAvailable(): boolean {
+  if (generatedCodeAllowed === undefined) {
+    try {
+      generatedCodeAllowed = new Function('return true')() === true;
+    } catch {
+      generatedCodeAllowed = false;
+    }
+  }
+  return generatedCodeAllowed;
+}
+
+/** How to compile: generated functions where the environment allows them (the default), else closures. */
+export interface CompileOptions {
+  readonly generatedCode?: boolean;
 }
 
 /** A sheet compiled to plain functions over SI values, indexed like the sheet's rows. */
@@ -83,7 +145,7 @@ export interface CompiledSheet {
   program(inputs: readonly number[], outputs: readonly number[]): (values: Float64Array) => void;
 }
 
-function closure(start: readonly number[], edges: readonly (readonly number[])[]): Set<number> {
+function reachable(start: readonly number[], edges: readonly (readonly number[])[]): Set<number> {
   const seen = new Set<number>(start);
   const pending = [...start];
   for (let next = pending.pop(); next !== undefined; next = pending.pop()) {
@@ -100,19 +162,22 @@ function closure(start: readonly number[], edges: readonly (readonly number[])[]
  * Compiles a sheet. Rows with static errors are left out (their values stay NaN) and listed in
  * `errors`; inputs and material values are placed in `base`.
  */
-export function compileSheet(sheet: Sheet): CompiledSheet {
+export function compileSheet(sheet: Sheet, options: CompileOptions = {}): CompiledSheet {
   const analysis = analyseSheet(sheet);
   const states = rowStates(analysis, () => undefined);
   const allowances = new Float64Array(analysis.rows.map((row) => row.allowance ?? Number.NaN));
-  const statementOf = (index: number): string | undefined => {
-    const row = analysis.rows[index];
-    if (row?.formula === undefined || states[index] !== undefined) return undefined;
-    return `v[${index}]=${expression(row.formula, analysis.indexOf)};`;
-  };
-  const build = (indices: readonly number[]): ((values: Float64Array) => void) => {
-    const chunks = compileChunks(indices.flatMap((index) => statementOf(index) ?? []));
+  const compilable = (index: number): FormulaNode | undefined => (states[index] === undefined ? analysis.rows[index]?.formula : undefined);
+  const build = (indices: readonly number[]): Runner => {
+    const rows = indices.flatMap((index) => {
+      const formula = compilable(index);
+      return formula === undefined ? [] : [{ index, formula }];
+    });
+    if (options.generatedCode ?? generatedCodeAvailable()) {
+      return compileChunks(rows.map(({ index, formula }) => `v[${index}]=${expression(formula, analysis.indexOf)};`), allowances);
+    }
+    const closures = rows.map(({ index, formula }) => ({ index, closure: closureOf(formula, analysis.indexOf, allowances) }));
     return (values) => {
-      for (const chunk of chunks) chunk(values, FUNCTION_TABLE, allowances);
+      for (const { index, closure } of closures) values[index] = closure(values);
     };
   };
   const base = new Float64Array(analysis.rows.map((row, index) => (states[index] === undefined ? (row.siValue ?? Number.NaN) : Number.NaN)));
@@ -122,8 +187,8 @@ export function compileSheet(sheet: Sheet): CompiledSheet {
     errors: states.filter((state): state is EngineError => state !== undefined),
     base,
     program: (inputs, outputs) => {
-      const downstream = closure(inputs, analysis.graph.dependents);
-      const upstream = closure(outputs, analysis.graph.dependencies);
+      const downstream = reachable(inputs, analysis.graph.dependents);
+      const upstream = reachable(outputs, analysis.graph.dependencies);
       return build(analysis.graph.order.filter((index) => downstream.has(index) && upstream.has(index) && !inputs.includes(index)));
     },
   };
@@ -144,9 +209,9 @@ function nonFiniteError(key: string, value: number): EngineError {
  * Evaluates a sheet with the compiled functions instead of HyperFormula, in the shape of
  * evaluateSheet. Used to cross-check the compiled path against HyperFormula.
  */
-export function evaluateCompiled(sheet: Sheet, overrides: Overrides = {}): Evaluation {
+export function evaluateCompiled(sheet: Sheet, overrides: Overrides = {}, options: CompileOptions = {}): Evaluation {
   const overridden = applyOverrides(sheet, overrides);
-  const compiled = compileSheet(overridden.sheet);
+  const compiled = compileSheet(overridden.sheet, options);
   const errors: EngineError[] = [...overridden.errors];
   const failed = new Set(compiled.errors.map((error) => error.key));
   const values: Evaluation['values'] = {};

@@ -13,7 +13,7 @@ export interface Evaluation {
 
 /**
  * Replaces rows by input values. An override of a formula or material row turns it into an input.
- * Returns the new sheet and one error per override that names no row or has a bad value.
+ * Returns the new sheet and one error per override that names no row, a protected row, or has a bad value.
  */
 export function applyOverrides(sheet: Sheet, overrides: Overrides): { sheet: Sheet; errors: EngineError[] } {
   const errors: EngineError[] = [];
@@ -22,6 +22,10 @@ export function applyOverrides(sheet: Sheet, overrides: Overrides): { sheet: She
     const parameter = sheet.parameters.find((candidate) => candidate.key === key);
     if (parameter === undefined) {
       errors.push(rowError(key, 'unknown_key', 'no row has this key, so it cannot be set'));
+      continue;
+    }
+    if (parameter.protected === true) {
+      errors.push(rowError(key, 'protected', 'the row is protected and cannot be set'));
       continue;
     }
     const converted = valueInRowUnit(parameter, value);

@@ -37,6 +37,10 @@ describe('sweep', () => {
     ]);
   });
 
+  it('refuses to sweep a protected constant', () => {
+    expect(sweep(sheet, { key: 'speed_of_light', from: 1, to: 2, steps: 2 }, ['srp_force'])).toMatchObject({ ok: false, errors: [{ key: 'speed_of_light', code: 'protected' }] });
+  });
+
   it('sweeps two inputs over a grid', () => {
     const result = sweep2(sheet, { key: 'distance', from: 1, to: 2, steps: 2 }, { key: 'cone_angle', from: 0, to: 60, steps: 2 }, ['srp_force']);
     if (!result.ok) throw new Error(JSON.stringify(result.errors));

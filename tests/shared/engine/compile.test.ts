@@ -31,6 +31,13 @@ describe('compiled evaluation', () => {
     expectSameResults(evaluateCompiled(sheet), reference);
   });
 
+  it('gives the same values through closures, for environments that forbid generated code', () => {
+    const template = squareSailTemplate();
+    expectSameResults(evaluateCompiled(template, { cone_angle: 20 }, { generatedCode: false }), evaluateSheet(template, { cone_angle: 20 }));
+    const sheet = syntheticSheet(300);
+    expectSameResults(evaluateCompiled(sheet, {}, { generatedCode: false }), evaluateSheet(sheet));
+  });
+
   it('reports the same rows in error as HyperFormula', () => {
     const sheet = {
       name: 'errors',

@@ -135,6 +135,13 @@ describe('evaluateSheet', () => {
     expect(evaluateSheet(sheet, { nope: 1 }).errors).toEqual([{ key: 'nope', code: 'unknown_key', message: 'nope: no row has this key, so it cannot be set' }]);
   });
 
+  it('refuses to override a protected row', () => {
+    const sheet = sheetOf(input('speed_of_light', 'm/s', 299_792_458, { protected: true }));
+    expect(evaluateSheet(sheet, { speed_of_light: 3e8 }).errors).toEqual([
+      { key: 'speed_of_light', code: 'protected', message: 'speed_of_light: the row is protected and cannot be set' },
+    ]);
+  });
+
   it('reports PREDICTED on a row that is not a mass row, and a missing preset', () => {
     const mass = input('bus', 'kg', 10, { mass: { maturity: 'layout', category: 'structure' } });
     const noPreset = evaluateSheet(sheetOf(mass, formula('p', 'kg', '=PREDICTED(bus)')));
