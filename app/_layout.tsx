@@ -14,7 +14,7 @@ export default function RootLayout() {
               <Stack.Screen name="index" />
             </Stack.Protected>
             <Stack.Protected guard={!signedIn}>
-              <Stack.Screen name="(auth)/sign-in" options={{ title: 'Sign in · Trimsheet' }} />
+              <Stack.Screen name="(auth)/sign-in" />
             </Stack.Protected>
           </Stack>
         )}

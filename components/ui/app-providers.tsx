@@ -6,6 +6,7 @@ import { RobotoMono_400Regular } from '@expo-google-fonts/roboto-mono/400Regular
 import { RobotoMono_500Medium } from '@expo-google-fonts/roboto-mono/500Medium';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
+import Head from 'expo-router/head';
 import { useState, type ReactNode } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '@/components/api/query-client';
@@ -21,15 +22,17 @@ const fontFiles = {
 };
 
 /**
- * The app-wide providers: safe area, the one query client, and the fonts (each weight loaded from
+ * The app-wide providers: page head (titles), safe area, the one query client, and the fonts (each weight loaded from
  * its own file). Children wait for the fonts; if a font fails to load the system font stands in.
  */
 export function AppProviders({ children }: { children: ReactNode }) {
   const [queryClient] = useState(() => createQueryClient());
   const [fontsLoaded, fontError] = useFonts(fontFiles);
   return (
-    <SafeAreaProvider>
-      <QueryClientProvider client={queryClient}>{fontsLoaded || fontError ? children : null}</QueryClientProvider>
-    </SafeAreaProvider>
+    <Head.Provider>
+      <SafeAreaProvider>
+        <QueryClientProvider client={queryClient}>{fontsLoaded || fontError ? children : null}</QueryClientProvider>
+      </SafeAreaProvider>
+    </Head.Provider>
   );
 }

@@ -1,11 +1,13 @@
-import { Stack } from 'expo-router';
+import Head from 'expo-router/head';
 import { CraftListScreen } from '@/components/crafts/craft-list-screen';
 
 /** /crafts */
 export default function CraftsRoute() {
   return (
     <>
-      <Stack.Screen options={{ title: 'Crafts · Trimsheet' }} />
+      <Head>
+        <title>Crafts · Trimsheet</title>
+      </Head>
       <CraftListScreen />
     </>
   );

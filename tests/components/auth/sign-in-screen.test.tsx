@@ -1,4 +1,4 @@
-import { fireEvent, screen } from '@testing-library/dom';
+import { fireEvent, screen, waitFor } from '@testing-library/dom';
 import SignInRoute from '@/app/(auth)/sign-in';
 import { assignPageLocation } from '@/components/auth/page-navigation';
 import { describeSignInError } from '@/components/auth/sign-in-screen';
@@ -30,6 +30,12 @@ describe('SignInScreen', () => {
     renderRoutes({ 'sign-in': SignInRoute }, '/sign-in?error=state_mismatch', wrapper);
 
     expect(screen.getByTestId('sign-in-error').textContent).toBe('Sign-in did not complete (state mismatch). Please try again.');
+  });
+
+  it('titles the page', async () => {
+    const { wrapper } = setupQueryClient(null);
+    renderRoutes({ 'sign-in': SignInRoute }, '/sign-in', wrapper);
+    await waitFor(() => expect(document.title).toBe('Sign in · Trimsheet'));
   });
 
   it('words known error codes in full and never shows an empty reason', () => {

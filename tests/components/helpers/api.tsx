@@ -1,4 +1,5 @@
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
+import Head from 'expo-router/head';
 import type { ReactNode } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '@/components/api/query-client';
@@ -64,9 +65,13 @@ export function setupQueryClient(user: SessionUser | null = demoUser): {
   const queryClient = createQueryClient({ retry: false });
   queryClient.setQueryData(sessionKeys.all, demoSession(user));
   const wrapper = ({ children }: { children: ReactNode }) => (
-    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
-      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
-    </SafeAreaProvider>
+    <Head.Provider>
+      <SafeAreaProvider
+        initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}
+      >
+        <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
+      </SafeAreaProvider>
+    </Head.Provider>
   );
   return { queryClient, wrapper };
 }

@@ -1,4 +1,5 @@
-import { Stack, useLocalSearchParams } from 'expo-router';
+import { useLocalSearchParams } from 'expo-router';
+import Head from 'expo-router/head';
 import { CraftScreen } from '@/components/crafts/craft-screen';
 
 /** /crafts/:craftId */
@@ -6,7 +7,9 @@ export default function CraftRoute() {
   const { craftId } = useLocalSearchParams<{ craftId: string }>();
   return (
     <>
-      <Stack.Screen options={{ title: 'Craft · Trimsheet' }} />
+      <Head>
+        <title>Craft · Trimsheet</title>
+      </Head>
       <CraftScreen craftId={craftId} />
     </>
   );
