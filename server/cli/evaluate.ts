@@ -11,7 +11,7 @@ const USAGE = 'usage: evaluate FILE [--set key=VALUE]...   (VALUE may carry a un
 
 interface Output {
   values: Record<string, { value: number; unit: string }>;
-  errors: Array<{ key: string; code: string; message: string }>;
+  errors: { key: string; code: string; message: string }[];
 }
 
 function finish(output: Output, code: number): never {

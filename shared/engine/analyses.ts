@@ -66,10 +66,13 @@ function prepare(sheet: Sheet, inputKeys: readonly string[], outputKeys: readonl
     const index = compiled.analysis.indexOf.get(key);
     const row = index === undefined ? undefined : compiled.analysis.rows[index];
     const problem = failed.get(key);
-    if (index === undefined || row === undefined) errors.push(rowError(key, 'unknown_key', `no row has this key, so it cannot be an ${role}`));
+    if (index === undefined || row === undefined)
+      errors.push(rowError(key, 'unknown_key', `no row has this key, so it cannot be an ${role}`));
     else if (problem !== undefined) errors.push(problem);
-    else if (role === 'input' && row.formula !== undefined) errors.push(rowError(key, 'invalid_argument', 'is a formula, not an input, so it cannot be swept'));
-    else if (role === 'input' && row.parameter.protected === true) errors.push(rowError(key, 'protected', 'the row is protected, so it cannot be swept'));
+    else if (role === 'input' && row.formula !== undefined)
+      errors.push(rowError(key, 'invalid_argument', 'is a formula, not an input, so it cannot be swept'));
+    else if (role === 'input' && row.parameter.protected === true)
+      errors.push(rowError(key, 'protected', 'the row is protected, so it cannot be swept'));
     else if (row.unit !== undefined) return { key, index, unit: row.unit, unitText: row.parameter.unit };
     return undefined;
   };
@@ -83,7 +86,10 @@ function axisPoints(sheet: Sheet, axis: SweepAxis): { ok: true; values: Float64A
   const parameter = sheet.parameters.find((candidate) => candidate.key === axis.key);
   if (parameter === undefined) return { ok: false, error: rowError(axis.key, 'unknown_key', 'no row has this key') };
   if (!Number.isInteger(axis.steps) || axis.steps < 2) {
-    return { ok: false, error: rowError(axis.key, 'invalid_argument', `a sweep needs a whole number of at least 2 steps, got ${axis.steps}`) };
+    return {
+      ok: false,
+      error: rowError(axis.key, 'invalid_argument', `a sweep needs a whole number of at least 2 steps, got ${axis.steps}`),
+    };
   }
   const from = valueInRowUnit(parameter, axis.from);
   if (!from.ok) return from;
@@ -93,7 +99,11 @@ function axisPoints(sheet: Sheet, axis: SweepAxis): { ok: true; values: Float64A
 }
 
 /** Runs a compiled sheet over `points` points; `setInputs` places the SI inputs of each point. Outputs come back in their units. */
-function run(prepared: Prepared, points: number, setInputs: (values: Float64Array, point: number) => void): { outputs: Float64Array[]; invalid: number } {
+function run(
+  prepared: Prepared,
+  points: number,
+  setInputs: (values: Float64Array, point: number) => void,
+): { outputs: Float64Array[]; invalid: number } {
   const { compiled, inputs, outputs } = prepared;
   const program = compiled.program(
     inputs.map((input) => input.index),
@@ -203,11 +213,16 @@ export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult
   const prepared = prepare(sheet, [request.input], [request.output]);
   const outputParameter = sheet.parameters.find((candidate) => candidate.key === request.output);
   const target = outputParameter === undefined ? undefined : valueInRowUnit(outputParameter, request.target);
-  const errors = [...(points.ok ? [] : [points.error]), ...(prepared.ok ? [] : prepared.errors), ...(target?.ok === false ? [target.error] : [])];
+  const errors = [
+    ...(points.ok ? [] : [points.error]),
+    ...(prepared.ok ? [] : prepared.errors),
+    ...(target?.ok === false ? [target.error] : []),
+  ];
   if (!points.ok || !prepared.ok || target?.ok !== true || errors.length > 0) return { ok: false, errors };
   const [input] = prepared.result.inputs;
   const [output] = prepared.result.outputs;
-  if (input === undefined || output === undefined) return { ok: false, errors: [rowError(request.output, 'unknown_key', 'no row has this key')] };
+  if (input === undefined || output === undefined)
+    return { ok: false, errors: [rowError(request.output, 'unknown_key', 'no row has this key')] };
 
   const program = prepared.result.compiled.program([input.index], [output.index]);
   const values = prepared.result.compiled.base.slice();
@@ -218,7 +233,10 @@ export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult
   };
   const solution = findRoot(points.values, residual);
   if (solution === undefined) {
-    return { ok: true, result: { status: 'no_solution', message: noSolutionMessage(request, points.values, residual, target.value, input, output) } };
+    return {
+      ok: true,
+      result: { status: 'no_solution', message: noSolutionMessage(request, points.values, residual, target.value, input, output) },
+    };
   }
   const checked = evaluateSheet(sheet, { [input.key]: solution }).values[output.key];
   if (checked === undefined) {

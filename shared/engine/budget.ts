@@ -22,8 +22,10 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey 
     const value = evaluation.values[key];
     const unit = parameter === undefined ? undefined : parseUnit(parameter.unit);
     if (parameter === undefined) errors.push(rowError(key, 'unknown_key', 'no row has this key'));
-    else if (value === undefined || unit === undefined || !unit.ok) errors.push(rowError(key, 'dependency_error', 'has no value, so the budget cannot be rolled up'));
-    else if (!sameDimension(unit.value.dimension, MASS)) errors.push(rowError(key, 'dimension_mismatch', `a budget row must be a mass, its unit is ${formatDimension(unit.value.dimension)}`));
+    else if (value === undefined || unit === undefined || !unit.ok)
+      errors.push(rowError(key, 'dependency_error', 'has no value, so the budget cannot be rolled up'));
+    else if (!sameDimension(unit.value.dimension, MASS))
+      errors.push(rowError(key, 'dimension_mismatch', `a budget row must be a mass, its unit is ${formatDimension(unit.value.dimension)}`));
     else return toSI(value.value, unit.value);
     return undefined;
   };
@@ -38,7 +40,14 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey 
   if (errors.length > 0 || allocation === undefined || !preset.ok) return { ok: false, errors };
   try {
     const requiredMarginPercent = sheet.budget?.requiredMarginPercent;
-    return { ok: true, result: rollUpBudget(rows, preset.value, requiredMarginPercent === undefined ? { allocation } : { allocation, requiredMarginPercent }) };
+    return {
+      ok: true,
+      result: rollUpBudget(
+        rows,
+        preset.value,
+        requiredMarginPercent === undefined ? { allocation } : { allocation, requiredMarginPercent },
+      ),
+    };
   } catch (error) {
     if (!(error instanceof BudgetInputError)) throw error;
     const row = /\('([^']*)'\)/.exec(error.path)?.[1] ?? (error.path === 'allocation' ? allocationKey : '');

@@ -173,14 +173,19 @@ export function compileSheet(sheet: Sheet, options: CompileOptions = {}): Compil
       return formula === undefined ? [] : [{ index, formula }];
     });
     if (options.generatedCode ?? generatedCodeAvailable()) {
-      return compileChunks(rows.map(({ index, formula }) => `v[${index}]=${expression(formula, analysis.indexOf)};`), allowances);
+      return compileChunks(
+        rows.map(({ index, formula }) => `v[${index}]=${expression(formula, analysis.indexOf)};`),
+        allowances,
+      );
     }
     const closures = rows.map(({ index, formula }) => ({ index, closure: closureOf(formula, analysis.indexOf, allowances) }));
     return (values) => {
       for (const { index, closure } of closures) values[index] = closure(values);
     };
   };
-  const base = new Float64Array(analysis.rows.map((row, index) => (states[index] === undefined ? (row.siValue ?? Number.NaN) : Number.NaN)));
+  const base = new Float64Array(
+    analysis.rows.map((row, index) => (states[index] === undefined ? (row.siValue ?? Number.NaN) : Number.NaN)),
+  );
   build(analysis.graph.order)(base);
   return {
     analysis,
@@ -229,7 +234,11 @@ export function evaluateCompiled(sheet: Sheet, overrides: Overrides = {}, option
     invalid.add(index);
     const upstream = (graph.dependencies[index] ?? []).find((dependency) => invalid.has(dependency));
     const upstreamKey = upstream === undefined ? undefined : rows[upstream]?.parameter.key;
-    errors.push(upstreamKey === undefined ? nonFiniteError(key, value) : rowError(key, 'dependency_error', `depends on ${upstreamKey}, which has an error`));
+    errors.push(
+      upstreamKey === undefined
+        ? nonFiniteError(key, value)
+        : rowError(key, 'dependency_error', `depends on ${upstreamKey}, which has an error`),
+    );
   }
   const order = new Map(rows.map((row, index) => [row.parameter.key, index]));
   errors.push(...compiled.errors);

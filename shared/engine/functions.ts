@@ -132,7 +132,13 @@ function round(digits: number, value: number, mode: (x: number) => number): numb
 }
 
 export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
-  SQRT: { minArgs: 1, maxArgs: 1, dimension: (args) => (args[0] ?? DIMENSIONLESS).map((value) => value / 2), evaluate: Math.sqrt, inline: mathCall('sqrt') },
+  SQRT: {
+    minArgs: 1,
+    maxArgs: 1,
+    dimension: (args) => (args[0] ?? DIMENSIONLESS).map((value) => value / 2),
+    evaluate: Math.sqrt,
+    inline: mathCall('sqrt'),
+  },
   POWER: {
     minArgs: 2,
     maxArgs: 2,
@@ -152,9 +158,24 @@ export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
   ABS: { minArgs: 1, maxArgs: 1, dimension: sameAsFirst('ABS'), evaluate: Math.abs, inline: mathCall('abs') },
   SIGN: { minArgs: 1, maxArgs: 1, dimension: () => DIMENSIONLESS, evaluate: Math.sign },
   // Rounding depends on the unit a value is written in, and formulas run in SI: only pure numbers may be rounded.
-  ROUND: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUND'), evaluate: (value, digits = 0) => round(digits, value, Math.round) },
-  ROUNDUP: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUNDUP'), evaluate: (value, digits = 0) => round(digits, value, Math.ceil) },
-  ROUNDDOWN: { minArgs: 1, maxArgs: 2, dimension: requireDimensionless('ROUNDDOWN'), evaluate: (value, digits = 0) => round(digits, value, Math.floor) },
+  ROUND: {
+    minArgs: 1,
+    maxArgs: 2,
+    dimension: requireDimensionless('ROUND'),
+    evaluate: (value, digits = 0) => round(digits, value, Math.round),
+  },
+  ROUNDUP: {
+    minArgs: 1,
+    maxArgs: 2,
+    dimension: requireDimensionless('ROUNDUP'),
+    evaluate: (value, digits = 0) => round(digits, value, Math.ceil),
+  },
+  ROUNDDOWN: {
+    minArgs: 1,
+    maxArgs: 2,
+    dimension: requireDimensionless('ROUNDDOWN'),
+    evaluate: (value, digits = 0) => round(digits, value, Math.floor),
+  },
   MIN: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MIN'), evaluate: Math.min, inline: mathCall('min') },
   MAX: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MAX'), evaluate: Math.max, inline: mathCall('max') },
   SUM: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('SUM'), evaluate: (...values) => values.reduce((sum, value) => sum + value, 0) },

@@ -64,11 +64,19 @@ export function readCell(key: string, value: CellValue): number | EngineError {
       case ErrorType.DIV_BY_ZERO:
         return rowError(key, 'division_by_zero', 'division by zero');
       case ErrorType.NUM:
-        return rowError(key, 'invalid_value', 'the result is not a finite number (a root or logarithm of a negative number, or an overflow)');
+        return rowError(
+          key,
+          'invalid_value',
+          'the result is not a finite number (a root or logarithm of a negative number, or an overflow)',
+        );
       case ErrorType.CYCLE:
         return rowError(key, 'cycle', 'the formula refers to itself');
       default:
-        return rowError(key, 'invalid_value', `the formula cannot be evaluated (${value.type}${value.message ? `: ${value.message}` : ''})`);
+        return rowError(
+          key,
+          'invalid_value',
+          `the formula cannot be evaluated (${value.type}${value.message ? `: ${value.message}` : ''})`,
+        );
     }
   }
   if (typeof value === 'boolean') return rowError(key, 'invalid_value', 'the formula gives a logical value (TRUE/FALSE), not a number');
@@ -77,7 +85,7 @@ export function readCell(key: string, value: CellValue): number | EngineError {
 }
 
 /** Builds the HyperFormula workbook for the given cell contents. */
-export function buildWorkbook(columns: ReadonlyArray<readonly [RawCellContent, RawCellContent]>): HyperFormula {
+export function buildWorkbook(columns: readonly (readonly [RawCellContent, RawCellContent])[]): HyperFormula {
   return HyperFormula.buildFromArray(
     columns.map(([a, b]) => [a, b]),
     hyperFormulaConfig(columns.length),

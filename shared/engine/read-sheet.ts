@@ -8,7 +8,9 @@ export interface SheetFileError {
 }
 
 function issuesText(issues: readonly { path: readonly PropertyKey[]; message: string }[]): string {
-  return issues.map((issue) => (issue.path.length > 0 ? `${issue.path.map(String).join('.')}: ${issue.message}` : issue.message)).join('; ');
+  return issues
+    .map((issue) => (issue.path.length > 0 ? `${issue.path.map(String).join('.')}: ${issue.message}` : issue.message))
+    .join('; ');
 }
 
 /**

@@ -48,7 +48,10 @@ interface Edit {
  * A value for a row in that row's own unit: a bare number is already in it, text may carry its
  * own unit ("60 m" for a row in km) and is converted, after checking the dimension.
  */
-export function valueInRowUnit(parameter: Parameter, value: number | string): { ok: true; value: number } | { ok: false; error: EngineError } {
+export function valueInRowUnit(
+  parameter: Parameter,
+  value: number | string,
+): { ok: true; value: number } | { ok: false; error: EngineError } {
   const fail = (code: EngineError['code'], detail: string) => ({ ok: false as const, error: rowError(parameter.key, code, detail) });
   const quantity = typeof value === 'number' ? { ok: true as const, value: { value, unit: undefined } } : parseQuantity(value);
   if (!quantity.ok) return fail(quantity.message.startsWith('unknown unit') ? 'unknown_unit' : 'invalid_value', quantity.message);
@@ -64,7 +67,9 @@ export function valueInRowUnit(parameter: Parameter, value: number | string): { 
     );
   }
   const converted = fromSI(toSI(quantity.value.value, given), own.value);
-  return Number.isFinite(converted) ? { ok: true, value: converted } : fail('invalid_value', `"${String(value)}" is out of range in ${parameter.unit}`);
+  return Number.isFinite(converted)
+    ? { ok: true, value: converted }
+    : fail('invalid_value', `"${String(value)}" is out of range in ${parameter.unit}`);
 }
 
 function sameMass(a: Parameter['mass'], b: Parameter['mass']): boolean {
@@ -79,9 +84,9 @@ class Session implements SheetSession {
   private readonly name: string;
   private readonly budget: Sheet['budget'];
   private readonly analysis: SheetAnalysis;
-  private readonly contents: Array<readonly [RawCellContent, RawCellContent]>;
+  private readonly contents: (readonly [RawCellContent, RawCellContent])[];
   private readonly workbook: HyperFormula;
-  private readonly results: Array<number | EngineError>;
+  private readonly results: (number | EngineError)[];
   private readonly undoStack: Edit[] = [];
   private readonly redoStack: Edit[] = [];
 
@@ -107,7 +112,7 @@ class Session implements SheetSession {
     return [cellContent(row, this.analysis.graph.cycles.has(index), this.cellIndex), row.allowance ?? null];
   }
 
-  private states(): Array<EngineError | undefined> {
+  private states(): (EngineError | undefined)[] {
     return rowStates(this.analysis, (index) => this.results[index]);
   }
 
@@ -160,7 +165,8 @@ class Session implements SheetSession {
   updateParameter(key: string, parameter: Parameter): EditResult {
     const target = this.editable(key);
     if (!target.ok) return target;
-    if (parameter.key !== key) return { ok: false, error: rowError(key, 'invalid_key', `an edit cannot change the key (to "${parameter.key}")`) };
+    if (parameter.key !== key)
+      return { ok: false, error: rowError(key, 'invalid_key', `an edit cannot change the key (to "${parameter.key}")`) };
     return this.record(target.index, target.parameter, parameter);
   }
 

@@ -162,7 +162,8 @@ function inputValue(parameter: Parameter, unit: ParsedUnit): number {
   if (parameter.material !== undefined) {
     const { id, property } = parameter.material;
     const found = materialProperty(id, property);
-    if (found === undefined) throw new RowProblem('unknown_material', `the materials library has no property "${property}" for material "${id}"`);
+    if (found === undefined)
+      throw new RowProblem('unknown_material', `the materials library has no property "${property}" for material "${id}"`);
     const materialUnit = parseUnit(found.unit);
     if (!materialUnit.ok) throw new RowProblem('unknown_unit', `material "${id}" ${property}: ${materialUnit.message}`);
     if (!sameDimension(materialUnit.value.dimension, unit.dimension)) {
@@ -261,7 +262,7 @@ export function buildGraph(rows: readonly AnalysedRow[], indexOf: ReadonlyMap<st
   const keyAt = (index: number): string => rows[index]?.parameter.key ?? '';
   for (let root = 0; root < rows.length; root += 1) {
     if (visitIndex[root] !== -1) continue;
-    const work: Array<{ node: number; next: number }> = [{ node: root, next: 0 }];
+    const work: { node: number; next: number }[] = [{ node: root, next: 0 }];
     visitIndex[root] = lowLink[root] = counter++;
     stack.push(root);
     onStack[root] = 1;
@@ -380,9 +381,9 @@ function cyclePath(analysis: SheetAnalysis, start: number, component: readonly s
 export function rowStates(
   analysis: SheetAnalysis,
   result: (index: number) => number | EngineError | undefined,
-): Array<EngineError | undefined> {
+): (EngineError | undefined)[] {
   const { rows, graph } = analysis;
-  const states: Array<EngineError | undefined> = rows.map(() => undefined);
+  const states: (EngineError | undefined)[] = rows.map(() => undefined);
   for (const index of graph.order) {
     const row = rows[index];
     if (row === undefined) continue;
@@ -391,7 +392,8 @@ export function rowStates(
     const failedDependency = (graph.dependencies[index] ?? []).find((dependency) => states[dependency] !== undefined);
     const value = result(index);
     if (row.error !== undefined) states[index] = row.error;
-    else if (cycle !== undefined) states[index] = rowError(key, 'cycle', `is on a cycle of formulas: ${cyclePath(analysis, index, cycle).join(' -> ')}`);
+    else if (cycle !== undefined)
+      states[index] = rowError(key, 'cycle', `is on a cycle of formulas: ${cyclePath(analysis, index, cycle).join(' -> ')}`);
     else if (failedDependency !== undefined) {
       const upstream = rows[failedDependency]?.parameter.key ?? '';
       states[index] = rowError(key, 'dependency_error', `depends on ${upstream}, which has an error`);

@@ -27,7 +27,8 @@ function time(runs: number, work: () => void): number {
 }
 
 function report(name: string, milliseconds: number, target?: number): void {
-  const verdict = target === undefined ? '' : milliseconds < target ? `  (target < ${target} ms: met)` : `  (target < ${target} ms: MISSED)`;
+  const verdict =
+    target === undefined ? '' : milliseconds < target ? `  (target < ${target} ms: met)` : `  (target < ${target} ms: MISSED)`;
   console.log(`${name.padEnd(62)} ${milliseconds.toFixed(3).padStart(10)} ms${verdict}`);
 }
 
@@ -37,12 +38,19 @@ function requireOk<T>(result: { ok: true; result: T } | { ok: false; errors: unk
 }
 
 console.log('median of several runs each, after one warm-up run');
-for (const [size, runs] of [[100, 30], [1000, 10], [10_000, 5]] as const) {
+for (const [size, runs] of [
+  [100, 30],
+  [1000, 10],
+  [10_000, 5],
+] as const) {
   const sheet = syntheticSheet(size);
-  report(`build and evaluate a ${size.toLocaleString('en')}-parameter sheet`, time(runs, () => {
-    const result = evaluateSheet(sheet);
-    if (result.errors.length > 0) throw new Error('synthetic sheet has errors');
-  }));
+  report(
+    `build and evaluate a ${size.toLocaleString('en')}-parameter sheet`,
+    time(runs, () => {
+      const result = evaluateSheet(sheet);
+      if (result.errors.length > 0) throw new Error('synthetic sheet has errors');
+    }),
+  );
 }
 
 {
@@ -64,17 +72,28 @@ for (const [size, runs] of [[100, 30], [1000, 10], [10_000, 5]] as const) {
 {
   const template = squareSailTemplate();
   const outputs = ['srp_force', 'characteristic_acceleration', 'sail_temperature'];
-  report('10,000-point sweep, square-sail template, 3 outputs', time(10, () => {
-    requireOk(sweep(template, { key: 'sail_side', from: 10, to: 1000, steps: 10_000 }, outputs));
-  }), 200);
+  report(
+    '10,000-point sweep, square-sail template, 3 outputs',
+    time(10, () => {
+      requireOk(sweep(template, { key: 'sail_side', from: 10, to: 1000, steps: 10_000 }, outputs));
+    }),
+    200,
+  );
   const sheet = syntheticSheet(1000);
   const last = sheet.parameters.slice(-3).map((parameter) => parameter.key);
-  report('10,000-point sweep, 1,000-parameter sheet (p_0), 3 outputs', time(10, () => {
-    requireOk(sweep(sheet, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, last));
-  }), 200);
+  report(
+    '10,000-point sweep, 1,000-parameter sheet (p_0), 3 outputs',
+    time(10, () => {
+      requireOk(sweep(sheet, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, last));
+    }),
+    200,
+  );
   const big = syntheticSheet(10_000);
   const bigLast = big.parameters.slice(-3).map((parameter) => parameter.key);
-  report('10,000-point sweep, 10,000-parameter sheet (p_0), 3 outputs', time(3, () => {
-    requireOk(sweep(big, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, bigLast));
-  }));
+  report(
+    '10,000-point sweep, 10,000-parameter sheet (p_0), 3 outputs',
+    time(3, () => {
+      requireOk(sweep(big, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, bigLast));
+    }),
+  );
 }

@@ -8,7 +8,7 @@ const template = path.join(root, 'shared', 'templates', 'square-sail.json');
 
 interface CliOutput {
   values: Record<string, { value: number; unit: string }>;
-  errors: Array<{ key: string; code: string; message: string }>;
+  errors: { key: string; code: string; message: string }[];
 }
 
 function evaluate(...args: string[]): { status: number | null; output: CliOutput } {

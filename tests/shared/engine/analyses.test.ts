@@ -6,7 +6,11 @@ const sheet = squareSailTemplate();
 
 describe('sweep', () => {
   it('sweeps one input and reads outputs that agree with HyperFormula at each point', () => {
-    const result = sweep(sheet, { key: 'sail_side', from: 20, to: '0.1 km', steps: 5 }, ['srp_force', 'characteristic_acceleration', 'sail_temperature']);
+    const result = sweep(sheet, { key: 'sail_side', from: 20, to: '0.1 km', steps: 5 }, [
+      'srp_force',
+      'characteristic_acceleration',
+      'sail_temperature',
+    ]);
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(Array.from(result.result.input.values)).toEqual([20, 40, 60, 80, 100]);
     expect(result.result.invalidPoints).toBe(0);
@@ -38,11 +42,16 @@ describe('sweep', () => {
   });
 
   it('refuses to sweep a protected constant', () => {
-    expect(sweep(sheet, { key: 'speed_of_light', from: 1, to: 2, steps: 2 }, ['srp_force'])).toMatchObject({ ok: false, errors: [{ key: 'speed_of_light', code: 'protected' }] });
+    expect(sweep(sheet, { key: 'speed_of_light', from: 1, to: 2, steps: 2 }, ['srp_force'])).toMatchObject({
+      ok: false,
+      errors: [{ key: 'speed_of_light', code: 'protected' }],
+    });
   });
 
   it('sweeps two inputs over a grid', () => {
-    const result = sweep2(sheet, { key: 'distance', from: 1, to: 2, steps: 2 }, { key: 'cone_angle', from: 0, to: 60, steps: 2 }, ['srp_force']);
+    const result = sweep2(sheet, { key: 'distance', from: 1, to: 2, steps: 2 }, { key: 'cone_angle', from: 0, to: 60, steps: 2 }, [
+      'srp_force',
+    ]);
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     const [force] = result.result.outputs;
     const at1 = force?.values[0] ?? Number.NaN;
@@ -77,7 +86,9 @@ describe('goalSeek', () => {
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(result.result.status).toBe('no_solution');
     if (result.result.status !== 'no_solution') return;
-    expect(result.result.message).toMatch(/^no solution: for sail_side from 10 to 100 m, characteristic_acceleration stays between [0-9.e-]+ and [0-9.e-]+ mm\/s\^2 and never reaches 5 mm\/s\^2/);
+    expect(result.result.message).toMatch(
+      /^no solution: for sail_side from 10 to 100 m, characteristic_acceleration stays between [0-9.e-]+ and [0-9.e-]+ mm\/s\^2 and never reaches 5 mm\/s\^2/,
+    );
   });
 
   it('refuses a target of the wrong dimension', () => {

@@ -25,14 +25,24 @@ describe('sheetBudget', () => {
   });
 
   it('converts mass rows given in grams to kilograms', () => {
-    const grams = { ...sheet, parameters: sheet.parameters.map((parameter) => (parameter.key === 'payload_mass' ? { ...parameter, unit: 'g', value: 2000 } : parameter)) };
+    const grams = {
+      ...sheet,
+      parameters: sheet.parameters.map((parameter) =>
+        parameter.key === 'payload_mass' ? { ...parameter, unit: 'g', value: 2000 } : parameter,
+      ),
+    };
     const budget = sheetBudget(grams, evaluateSheet(grams));
     if (!budget.ok) throw new Error(JSON.stringify(budget.errors));
     expect(budget.result.rows.find((row) => row.key === 'payload_mass')?.cbe).toBe(2);
   });
 
   it('names the rows that keep the budget from rolling up', () => {
-    const broken = { ...sheet, parameters: sheet.parameters.map((parameter) => (parameter.key === 'bus_mass' ? { ...parameter, mass: { maturity: 'guessed', category: 'structure' } } : parameter)) };
+    const broken = {
+      ...sheet,
+      parameters: sheet.parameters.map((parameter) =>
+        parameter.key === 'bus_mass' ? { ...parameter, mass: { maturity: 'guessed', category: 'structure' } } : parameter,
+      ),
+    };
     const budget = sheetBudget(broken, evaluateSheet(broken));
     expect(budget).toMatchObject({ ok: false, errors: [{ key: 'bus_mass', code: 'budget_error' }] });
     const noAllocation = sheetBudget(sheet, evaluateSheet(sheet), 'nothing');

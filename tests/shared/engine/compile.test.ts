@@ -33,7 +33,10 @@ describe('compiled evaluation', () => {
 
   it('gives the same values through closures, for environments that forbid generated code', () => {
     const template = squareSailTemplate();
-    expectSameResults(evaluateCompiled(template, { cone_angle: 20 }, { generatedCode: false }), evaluateSheet(template, { cone_angle: 20 }));
+    expectSameResults(
+      evaluateCompiled(template, { cone_angle: 20 }, { generatedCode: false }),
+      evaluateSheet(template, { cone_angle: 20 }),
+    );
     const sheet = syntheticSheet(300);
     expectSameResults(evaluateCompiled(sheet, {}, { generatedCode: false }), evaluateSheet(sheet));
   });

@@ -8,14 +8,25 @@ describe('parseFormula', () => {
   afterAll(() => hf.destroy());
 
   // HyperFormula is the reference grammar: the same text must give the same number.
-  it.each(['=-2^2', '=2^3^2', '=1+2*3-4/5', '=2*50%', '=-(1+2)*3', '=1<2', '=2-3-4', '=8/4/2', '=+3', '=1.5e3*2e-3', '=.5*4', '=10%^2', '=(1+1)^-1'])(
-    'evaluates %s as HyperFormula does',
-    (text) => {
-      const ours = constantValue(parseFormula(text));
-      const theirs = hf.calculateFormula(text, 0);
-      expect(ours).toBeCloseTo(Number(theirs), 12);
-    },
-  );
+  it.each([
+    '=-2^2',
+    '=2^3^2',
+    '=1+2*3-4/5',
+    '=2*50%',
+    '=-(1+2)*3',
+    '=1<2',
+    '=2-3-4',
+    '=8/4/2',
+    '=+3',
+    '=1.5e3*2e-3',
+    '=.5*4',
+    '=10%^2',
+    '=(1+1)^-1',
+  ])('evaluates %s as HyperFormula does', (text) => {
+    const ours = constantValue(parseFormula(text));
+    const theirs = hf.calculateFormula(text, 0);
+    expect(ours).toBeCloseTo(Number(theirs), 12);
+  });
 
   it('accepts an upper-case exponent, which HyperFormula itself refuses, and writes it for HyperFormula in its own syntax', () => {
     const text = toHyperFormulaText(parseFormula('=2E-3 * side + 1E+21'), () => 0);
@@ -24,7 +35,11 @@ describe('parseFormula', () => {
   });
 
   it('lists the keys a formula refers to, once each', () => {
-    expect(referencedKeys(parseFormula('=film_thickness * film_density * sail_area + SQRT(film_thickness)'))).toEqual(['film_thickness', 'film_density', 'sail_area']);
+    expect(referencedKeys(parseFormula('=film_thickness * film_density * sail_area + SQRT(film_thickness)'))).toEqual([
+      'film_thickness',
+      'film_density',
+      'sail_area',
+    ]);
   });
 
   it('reads function names in any case', () => {

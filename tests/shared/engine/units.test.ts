@@ -100,15 +100,21 @@ describe('parameter keys', () => {
   const hf = HyperFormula.buildEmpty(hyperFormulaConfig(1));
   afterAll(() => hf.destroy());
 
-  it.each(['sail_side', 'boom_count', 'solar_irradiance_1au', 'film_thickness', 'x', 'rate_1', 'area', 'r', 'c', 'rx'])('accepts %s, as HyperFormula does', (key) => {
-    expect(parameterKeyProblem(key)).toBeUndefined();
-    expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(true);
-  });
+  it.each(['sail_side', 'boom_count', 'solar_irradiance_1au', 'film_thickness', 'x', 'rate_1', 'area', 'r', 'c', 'rx'])(
+    'accepts %s, as HyperFormula does',
+    (key) => {
+      expect(parameterKeyProblem(key)).toBeUndefined();
+      expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(true);
+    },
+  );
 
-  it.each(['boom2', 'r1', 'rc', 'c2', 'r1c1', 'rc3', 'ab12', 'log10'])('refuses %s, which HyperFormula reads as a cell reference', (key) => {
-    expect(parameterKeyProblem(key)).toBeDefined();
-    expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(false);
-  });
+  it.each(['boom2', 'r1', 'rc', 'c2', 'r1c1', 'rc3', 'ab12', 'log10'])(
+    'refuses %s, which HyperFormula reads as a cell reference',
+    (key) => {
+      expect(parameterKeyProblem(key)).toBeDefined();
+      expect(hf.isItPossibleToAddNamedExpression(key, '=1')).toBe(false);
+    },
+  );
 
   it.each(['Sail_side', '1abc', 'sail-side', 'sail side', ''])('refuses %s, which is not snake_case', (key) => {
     expect(parameterKeyProblem(key)).toMatch(/snake_case/);

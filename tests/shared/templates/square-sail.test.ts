@@ -28,13 +28,47 @@ describe('square-sail template', () => {
 
   it('has every required key, a note on every row and a visible formula on every output', () => {
     const keys = sheet.parameters.map((parameter) => parameter.key);
-    const inputs = ['sail_side', 'film_thickness', 'film_density', 'front_coating_thickness', 'front_coating_density',
-      'back_coating_thickness', 'back_coating_density', 'boom_count', 'boom_linear_density', 'deployer_mass', 'bus_mass',
-      'payload_mass', 'sail_efficiency', 'distance', 'cone_angle', 'reflectivity', 'specular_fraction', 'emissivity_front',
-      'emissivity_back', 'nonlambertian_front', 'nonlambertian_back', 'mass_allocation'];
-    const outputs = ['sail_area', 'membrane_mass', 'boom_length', 'boom_mass', 'total_mass', 'predicted_mass', 'areal_density',
-      'characteristic_acceleration', 'lightness_number', 'srp_force', 'srp_force_optical', 'srp_force_normal',
-      'srp_force_transverse', 'sail_temperature', 'system_margin'];
+    const inputs = [
+      'sail_side',
+      'film_thickness',
+      'film_density',
+      'front_coating_thickness',
+      'front_coating_density',
+      'back_coating_thickness',
+      'back_coating_density',
+      'boom_count',
+      'boom_linear_density',
+      'deployer_mass',
+      'bus_mass',
+      'payload_mass',
+      'sail_efficiency',
+      'distance',
+      'cone_angle',
+      'reflectivity',
+      'specular_fraction',
+      'emissivity_front',
+      'emissivity_back',
+      'nonlambertian_front',
+      'nonlambertian_back',
+      'mass_allocation',
+    ];
+    const outputs = [
+      'sail_area',
+      'membrane_mass',
+      'boom_length',
+      'boom_mass',
+      'total_mass',
+      'predicted_mass',
+      'areal_density',
+      'characteristic_acceleration',
+      'lightness_number',
+      'srp_force',
+      'srp_force_optical',
+      'srp_force_normal',
+      'srp_force_transverse',
+      'sail_temperature',
+      'system_margin',
+    ];
     expect(keys).toEqual(expect.arrayContaining([...inputs, ...outputs]));
     for (const parameter of sheet.parameters) expect(parameter.note).toMatch(/\S/);
     for (const key of outputs) expect(sheet.parameters.find((p) => p.key === key)?.formula).toMatch(/^=/);
@@ -48,7 +82,13 @@ describe('square-sail template', () => {
     ['stefan_boltzmann', STEFAN_BOLTZMANN],
   ])('holds the constant %s as shared/sail/constants gives it, protected and sourced', (key, constant) => {
     const row = sheet.parameters.find((parameter) => parameter.key === key);
-    expect(row).toMatchObject({ value: constant.value, unit: constant.unit, source: constant.source, protected: true, subsystem: 'Constants' });
+    expect(row).toMatchObject({
+      value: constant.value,
+      unit: constant.unit,
+      source: constant.source,
+      protected: true,
+      subsystem: 'Constants',
+    });
   });
 
   // McInnes 1999, Solar Sailing, ch. 2: P = S0/c = 4.54e-6 N/m^2 at 1 AU (S0 = 1361 W/m^2, IAU 2015 Resolution B3).
@@ -136,7 +176,9 @@ describe('square-sail template', () => {
     const esa = {
       ...sheet,
       budget: { preset: 'esa-margin' },
-      parameters: sheet.parameters.map((parameter) => (parameter.mass === undefined ? parameter : { ...parameter, mass: { maturity: 'new_design', category: parameter.mass.category } })),
+      parameters: sheet.parameters.map((parameter) =>
+        parameter.mass === undefined ? parameter : { ...parameter, mass: { maturity: 'new_design', category: parameter.mass.category } },
+      ),
     };
     const { values, errors } = evaluateSheet(esa);
     expect(errors).toEqual([]);
