@@ -1,13 +1,11 @@
-import Head from 'expo-router/head';
 import { AccountScreen } from '@/components/account/account-screen';
+import { PageTitle } from '@/components/ui/page-title';
 
 /** /account */
 export default function AccountRoute() {
   return (
     <>
-      <Head>
-        <title>Account · Trimsheet</title>
-      </Head>
+      <PageTitle title="Account" />
       <AccountScreen />
     </>
   );

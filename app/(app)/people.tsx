@@ -1,13 +1,11 @@
-import Head from 'expo-router/head';
 import { PeopleScreen } from '@/components/members/people-screen';
+import { PageTitle } from '@/components/ui/page-title';
 
 /** /people (organisation admins). */
 export default function PeopleRoute() {
   return (
     <>
-      <Head>
-        <title>People · Trimsheet</title>
-      </Head>
+      <PageTitle title="People" />
       <PeopleScreen />
     </>
   );

@@ -1,7 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
-import { Button } from '@/components/ui/button';
-import { FormError, FormTextField, useSchemaForm } from '@/components/ui/form';
+import { FormActions, FormError, FormTextField, useSchemaForm } from '@/components/ui/form';
 import { space } from '@/components/ui/theme';
 import { createCraftBodySchema, type CreateCraftBody } from '@/shared/schemas/crafts';
 
@@ -41,15 +40,11 @@ export function CraftForm({
       <FormTextField control={control} name="name" label="Name" testID={`${testID}-name`} autoCapitalize="words" onSubmitEditing={submit} />
       <FormTextField control={control} name="description" label="Description" testID={`${testID}-description`} multiline />
       <FormError message={formError} />
-      <View style={styles.actions}>
-        <Button label={submitLabel} busy={isSubmitting} onPress={submit} testID={`${testID}-submit`} />
-        {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}
-      </View>
+      <FormActions submitLabel={submitLabel} busy={isSubmitting} onSubmit={submit} onCancel={onCancel} testID={testID} />
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   form: { gap: space.md },
-  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

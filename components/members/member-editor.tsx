@@ -1,9 +1,8 @@
 import { useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/components/api/client';
-import { Button } from '@/components/ui/button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { FormError } from '@/components/ui/form';
+import { FormActions, FormError } from '@/components/ui/form';
 import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
@@ -105,15 +104,11 @@ export function MemberEditor({
         />
       ) : null}
       <FormError message={errors.form} />
-      <View style={styles.actions}>
-        <Button label={submitLabel} busy={busy} onPress={() => void submit()} testID={`${testID}-submit`} />
-        {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}
-      </View>
+      <FormActions submitLabel={submitLabel} busy={busy} onSubmit={() => void submit()} onCancel={onCancel} testID={testID} />
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   editor: { gap: space.md },
-  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

@@ -12,7 +12,10 @@ import {
 } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiError } from '@/components/api/client';
+import { StyleSheet, View } from 'react-native';
+import { Button } from './button';
 import { AppText } from './text';
+import { space } from './theme';
 import { TextField, type TextFieldProps } from './text-field';
 
 /** The form field a schema issue or a server detail belongs to: its first path segment after "body". */
@@ -122,3 +125,27 @@ export function FormError({ message }: { message: string | null | undefined }) {
     </AppText>
   ) : null;
 }
+
+export type FormActionsProps = {
+  submitLabel: string;
+  busy: boolean;
+  onSubmit: () => void;
+  /** Shows a Cancel button when given. */
+  onCancel?: () => void;
+  /** The submit button's testID is `<testID>-submit`. */
+  testID: string;
+};
+
+/** The row under a form: submit, and Cancel where the form can be closed. */
+export function FormActions({ submitLabel, busy, onSubmit, onCancel, testID }: FormActionsProps) {
+  return (
+    <View style={styles.actions}>
+      <Button label={submitLabel} busy={busy} onPress={onSubmit} testID={`${testID}-submit`} />
+      {onCancel ? <Button label="Cancel" tone="quiet" onPress={onCancel} /> : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});

@@ -1,13 +1,11 @@
-import Head from 'expo-router/head';
 import { CraftListScreen } from '@/components/crafts/craft-list-screen';
+import { PageTitle } from '@/components/ui/page-title';
 
 /** /crafts */
 export default function CraftsRoute() {
   return (
     <>
-      <Head>
-        <title>Crafts · Trimsheet</title>
-      </Head>
+      <PageTitle title="Crafts" />
       <CraftListScreen />
     </>
   );

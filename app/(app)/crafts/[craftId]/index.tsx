@@ -1,15 +1,13 @@
 import { useLocalSearchParams } from 'expo-router';
-import Head from 'expo-router/head';
 import { CraftScreen } from '@/components/crafts/craft-screen';
+import { PageTitle } from '@/components/ui/page-title';
 
 /** /crafts/:craftId */
 export default function CraftRoute() {
   const { craftId } = useLocalSearchParams<{ craftId: string }>();
   return (
     <>
-      <Head>
-        <title>Craft · Trimsheet</title>
-      </Head>
+      <PageTitle title="Craft" />
       <CraftScreen craftId={craftId} />
     </>
   );
