@@ -1,5 +1,5 @@
 import { ExportedCellChange, type HyperFormula, type RawCellContent } from 'hyperformula';
-import type { Parameter, Sheet } from '@/shared/schemas/sheet';
+import { parameterKeyProblem, type Parameter, type Sheet } from '@/shared/schemas/sheet';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import { buildWorkbook, cellContent, readCell } from '@/shared/engine/hyperformula-cells';
 import { analyseSheet, buildGraph, reanalyseRow, rowStates, type AnalysedRow, type SheetAnalysis } from '@/shared/engine/sheet-model';
@@ -28,6 +28,12 @@ export interface SheetSession {
   setFormula(key: string, formula: string): EditResult;
   /** Replaces a row's definition (unit, mass category, note, material, ...). The key must stay the same. */
   updateParameter(key: string, parameter: Parameter): EditResult;
+  /** Adds a row before the row `beforeKey`, or at the end. Structural edits rebuild the workbook. */
+  insertParameter(parameter: Parameter, beforeKey?: string): EditResult;
+  /** Removes a row; rows that read it then report an unknown key. */
+  removeParameter(key: string): EditResult;
+  /** Changes the mass-budget settings (allowance preset, required margin). */
+  setBudget(budget: Sheet['budget']): EditResult;
   /** Undoes the last edit; false when there is nothing to undo. */
   undo(): EditResult | false;
   /** Redoes the last undone edit; false when there is nothing to redo. */
@@ -38,11 +44,10 @@ export interface SheetSession {
   destroy(): void;
 }
 
-interface Edit {
-  readonly index: number;
-  readonly before: Parameter;
-  readonly after: Parameter;
-}
+/** An edit of one row, replayed cell by cell, or of the sheet's structure, replayed by a rebuild. */
+type Edit =
+  | { readonly kind: 'row'; readonly index: number; readonly before: Parameter; readonly after: Parameter }
+  | { readonly kind: 'sheet'; readonly before: Sheet; readonly after: Sheet };
 
 /**
  * A value for a row in that row's own unit: a bare number is already in it, text may carry its
@@ -82,11 +87,11 @@ function sameList(a: readonly string[], b: readonly string[]): boolean {
 
 class Session implements SheetSession {
   private readonly name: string;
-  private readonly budget: Sheet['budget'];
-  private readonly analysis: SheetAnalysis;
-  private readonly contents: (readonly [RawCellContent, RawCellContent])[];
-  private readonly workbook: HyperFormula;
-  private readonly results: (number | EngineError)[];
+  private budget: Sheet['budget'];
+  private analysis: SheetAnalysis;
+  private contents: (readonly [RawCellContent, RawCellContent])[];
+  private workbook: HyperFormula;
+  private results: (number | EngineError)[];
   private readonly undoStack: Edit[] = [];
   private readonly redoStack: Edit[] = [];
 
@@ -96,8 +101,23 @@ class Session implements SheetSession {
     this.analysis = analyseSheet(sheet);
     this.contents = this.analysis.rows.map((_, index) => this.contentOf(index));
     this.workbook = buildWorkbook(this.contents);
-    const initial = this.workbook.getSheetValues(0);
-    this.results = this.analysis.rows.map((row, index) => readCell(row.parameter.key, initial[index]?.[0] ?? null));
+    this.results = this.readAll();
+  }
+
+  private readAll(): (number | EngineError)[] {
+    const values = this.workbook.getSheetValues(0);
+    return this.analysis.rows.map((row, index) => readCell(row.parameter.key, values[index]?.[0] ?? null));
+  }
+
+  /** Replaces the whole sheet: new analysis and a new workbook. */
+  private load(sheet: Sheet): EditResult {
+    this.workbook.destroy();
+    this.budget = sheet.budget;
+    this.analysis = analyseSheet(sheet);
+    this.contents = this.analysis.rows.map((_, index) => this.contentOf(index));
+    this.workbook = buildWorkbook(this.contents);
+    this.results = this.readAll();
+    return { ok: true, recomputed: this.rows.map((row) => row.parameter.key) };
   }
 
   private get rows(): readonly AnalysedRow[] {
@@ -170,24 +190,61 @@ class Session implements SheetSession {
     return this.record(target.index, target.parameter, parameter);
   }
 
+  insertParameter(parameter: Parameter, beforeKey?: string): EditResult {
+    const problem = parameterKeyProblem(parameter.key);
+    if (problem !== undefined) return { ok: false, error: rowError(parameter.key, 'invalid_key', `key ${problem}`) };
+    if (this.analysis.indexOf.has(parameter.key)) {
+      return { ok: false, error: rowError(parameter.key, 'duplicate_key', 'a row with this key exists already') };
+    }
+    const position = beforeKey === undefined ? this.rows.length : this.analysis.indexOf.get(beforeKey);
+    if (position === undefined)
+      return { ok: false, error: rowError(beforeKey ?? '', 'unknown_key', 'no row has this key to insert before') };
+    const parameters = this.sheet().parameters;
+    parameters.splice(position, 0, parameter);
+    return this.recordSheet({ ...this.sheet(), parameters });
+  }
+
+  removeParameter(key: string): EditResult {
+    const target = this.editable(key);
+    if (!target.ok) return target;
+    return this.recordSheet({ ...this.sheet(), parameters: this.sheet().parameters.filter((_, index) => index !== target.index) });
+  }
+
+  setBudget(budget: Sheet['budget']): EditResult {
+    const { budget: _budget, ...rest } = this.sheet();
+    return this.recordSheet(budget === undefined ? rest : { ...rest, budget });
+  }
+
   private record(index: number, before: Parameter, after: Parameter): EditResult {
-    this.undoStack.push({ index, before, after });
+    return this.push({ kind: 'row', index, before, after });
+  }
+
+  private recordSheet(after: Sheet): EditResult {
+    return this.push({ kind: 'sheet', before: this.sheet(), after });
+  }
+
+  private push(edit: Edit): EditResult {
+    this.undoStack.push(edit);
     this.redoStack.length = 0;
-    return this.apply(index, after);
+    return this.replay(edit, 'after');
+  }
+
+  private replay(edit: Edit, side: 'before' | 'after'): EditResult {
+    return edit.kind === 'row' ? this.apply(edit.index, edit[side]) : this.load(edit[side]);
   }
 
   undo(): EditResult | false {
     const edit = this.undoStack.pop();
     if (edit === undefined) return false;
     this.redoStack.push(edit);
-    return this.apply(edit.index, edit.before);
+    return this.replay(edit, 'before');
   }
 
   redo(): EditResult | false {
     const edit = this.redoStack.pop();
     if (edit === undefined) return false;
     this.undoStack.push(edit);
-    return this.apply(edit.index, edit.after);
+    return this.replay(edit, 'after');
   }
 
   canUndo(): boolean {

@@ -94,4 +94,54 @@ describe('createSheetSession', () => {
     expect(session.errors()).toEqual([]);
     expect(session.values().volume?.value).toBeCloseTo(200, 9);
   });
+
+  it('inserts and removes rows, with undo', () => {
+    expect(
+      session.insertParameter({ key: 'perimeter', label: 'p', subsystem: 's', unit: 'm', formula: '=4 * side' }, 'area'),
+    ).toMatchObject({ ok: true });
+    expect(
+      session
+        .sheet()
+        .parameters.map((parameter) => parameter.key)
+        .slice(0, 4),
+    ).toEqual(['side', 'thickness', 'perimeter', 'area']);
+    expect(session.values().perimeter?.value).toBe(40);
+    session.setInput('side', 3);
+    expect(session.values().perimeter?.value).toBe(12);
+    expect(session.removeParameter('area')).toMatchObject({ ok: true });
+    expect(session.errors()).toEqual([{ key: 'volume', code: 'unknown_key', message: 'volume: unknown key "area" in the formula' }]);
+    session.undo();
+    expect(session.errors()).toEqual([]);
+    expect(session.values().area?.value).toBe(9);
+    session.undo();
+    session.undo();
+    expect(session.values().perimeter).toBeUndefined();
+    expect(session.insertParameter({ key: 'side', label: 'x', subsystem: 's', unit: 'm', value: 1 })).toMatchObject({
+      ok: false,
+      error: { code: 'duplicate_key' },
+    });
+    expect(session.insertParameter({ key: 'boom2', label: 'x', subsystem: 's', unit: 'm', value: 1 })).toMatchObject({
+      ok: false,
+      error: { code: 'invalid_key' },
+    });
+    expect(session.removeParameter('constant')).toMatchObject({ ok: false, error: { code: 'protected' } });
+  });
+
+  it('follows a change of allowance preset', () => {
+    const budgeted = createSheetSession({
+      name: 'budget',
+      budget: { preset: 'esa-margin' },
+      parameters: [
+        { key: 'bus', label: 'bus', subsystem: 's', unit: 'kg', value: 10, mass: { maturity: 'new_design', category: 'structure' } },
+        { key: 'predicted', label: 'predicted', subsystem: 's', unit: 'kg', formula: '=PREDICTED(bus)' },
+      ],
+    });
+    // ESA SRE-PA/2011.097: 20 % on a new design.
+    expect(budgeted.values().predicted?.value).toBeCloseTo(12, 12);
+    budgeted.setBudget({ preset: 'aiaa-s120a' });
+    expect(budgeted.errors()).toEqual([expect.objectContaining({ key: 'predicted', code: 'budget_error' })]);
+    budgeted.undo();
+    expect(budgeted.values().predicted?.value).toBeCloseTo(12, 12);
+    budgeted.destroy();
+  });
 });
