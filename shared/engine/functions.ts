@@ -131,6 +131,7 @@ function round(digits: number, value: number, mode: (x: number) => number): numb
   return (Math.sign(value) * mode(Math.abs(value) * scale)) / scale;
 }
 
+/** Every function a sheet formula may call, by its upper-case name. */
 export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
   SQRT: {
     minArgs: 1,
