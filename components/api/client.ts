@@ -59,7 +59,22 @@ type Result<S> = S extends z.ZodType ? z.output<S> : undefined;
 export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   method: Method,
   path: string,
-  { body, schema }: RequestOptions<S> = {},
+  options: RequestOptions<S> = {},
+): Promise<Result<S>> {
+  try {
+    return await send(method, path, options);
+  } catch (error) {
+    // A token from before a sign-in or sign-out elsewhere is void: fetch the current one and try once more.
+    if (!(error instanceof ApiError && error.code === 'invalid_csrf_token')) throw error;
+    rememberCsrfToken(null);
+    return send(method, path, options);
+  }
+}
+
+async function send<S extends z.ZodType | undefined>(
+  method: Method,
+  path: string,
+  { body, schema }: RequestOptions<S>,
 ): Promise<Result<S>> {
   const headers: Record<string, string> = { accept: 'application/json' };
   if (body !== undefined) headers['content-type'] = 'application/json';

@@ -4,7 +4,7 @@ import { Card } from '@/components/ui/card';
 import { SailMark } from '@/components/ui/sail-mark';
 import { AppText } from '@/components/ui/text';
 import { colors, space } from '@/components/ui/theme';
-import type { SessionResponse } from '@/shared/schemas/session';
+import { signInErrorCodeSchema, type SessionResponse, type SignInErrorCode } from '@/shared/schemas/session';
 import { assignPageLocation } from './page-navigation';
 import { useSession } from './queries';
 
@@ -15,15 +15,20 @@ const buttonLabels: Record<ProviderId, string> = {
   sso: 'Company SSO',
 };
 
-const knownErrors: Record<string, string> = {
+const errorMessages: Record<SignInErrorCode, string> = {
+  no_account: 'There is no Trimsheet account for this sign-in. Ask an organisation admin to invite you.',
+  email_not_verified: 'Your provider has not verified this e-mail address. Verify it there, then sign in again.',
+  missing_email: 'Your provider did not share an e-mail address, and Trimsheet needs one to know who you are.',
+  state_mismatch: 'The sign-in expired or was started in another tab. Please try again.',
   access_denied: 'Sign-in was cancelled at the provider.',
-  not_invited: 'This account has not been invited to an organisation yet. Ask an organisation admin for an invitation.',
+  provider_error: 'The sign-in provider could not be reached. Please try again in a moment.',
+  too_many_requests: 'Too many sign-in attempts. Wait a minute, then try again.',
 };
 
 /** Turns an `?error=` code from the sign-in redirect into a sentence a person can act on. */
 export function describeSignInError(code: string): string {
-  const known = knownErrors[code];
-  if (known) return known;
+  const known = signInErrorCodeSchema.safeParse(code);
+  if (known.success) return errorMessages[known.data];
   const words = code.replace(/[_-]+/g, ' ').trim();
   return `Sign-in did not complete (${words || 'unknown reason'}). Please try again.`;
 }

@@ -130,9 +130,8 @@ function AddMember({ craftId, members }: { craftId: string; members: readonly Me
       ) : (
         <MemberEditor
           submitLabel="Add to craft"
-          blockedReason={personId === null ? 'choose a person' : undefined}
           onSubmit={async (body) => {
-            if (personId === null) return;
+            if (personId === null) throw new Error('Choose the person to add.');
             await setMember.mutateAsync({ userId: personId, body });
             close();
           }}

@@ -40,8 +40,6 @@ export type MemberEditorProps = {
   /** Saves the membership; field errors from the server appear beside role or subsystems. */
   onSubmit: (body: SetMemberBody) => Promise<unknown>;
   onCancel?: () => void;
-  /** Refuses to submit, e.g. while no person is picked; the reason is shown as a form error. */
-  blockedReason?: string;
   /** Fields shown above the role, e.g. the person picker when adding. */
   children?: ReactNode;
   testID: string;
@@ -54,7 +52,6 @@ export function MemberEditor({
   submitLabel,
   onSubmit,
   onCancel,
-  blockedReason,
   children,
   testID,
 }: MemberEditorProps) {
@@ -64,7 +61,6 @@ export function MemberEditor({
   const [busy, setBusy] = useState(false);
 
   const submit = async () => {
-    if (blockedReason) return setErrors({ form: blockedReason });
     const parsed = setMemberBodySchema.safeParse({
       role: role ?? undefined,
       subsystems: role === 'subsystem_owner' ? parseSubsystems(subsystems) : [],

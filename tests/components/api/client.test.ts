@@ -26,6 +26,24 @@ describe('apiRequest', () => {
     expect(fetchMock.mock.calls.filter(([path]) => path === '/api/auth/session')).toHaveLength(1);
   });
 
+  it('fetches a fresh CSRF token and tries once more when the server calls the token void', async () => {
+    let sessionFetches = 0;
+    const fetchMock = mockFetch({
+      'GET /api/auth/session': () => {
+        sessionFetches += 1;
+        return { status: 200, body: { ...demoSession(demoUser), csrfToken: `token-${sessionFetches}` } };
+      },
+      'DELETE /api/things/a': { status: 403, body: { error: { code: 'invalid_csrf_token', message: 'invalid csrf token' } } },
+    });
+    rememberCsrfToken('stale');
+    await expect(apiRequest('DELETE', '/api/things/a')).rejects.toMatchObject({ status: 403, code: 'invalid_csrf_token' });
+
+    const tokens = fetchMock.mock.calls
+      .filter(([, init]) => init?.method === 'DELETE')
+      .map(([, init]) => (init?.headers as Record<string, string>)['x-csrf-token']);
+    expect(tokens).toEqual(['stale', 'token-1']);
+  });
+
   it('sends no CSRF header on GET', async () => {
     const fetchMock = mockFetch({ 'GET /api/crafts': { status: 200, body: {} } });
     await apiRequest('GET', '/api/crafts');

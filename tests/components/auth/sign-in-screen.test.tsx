@@ -2,6 +2,7 @@ import { fireEvent, screen, waitFor } from '@testing-library/dom';
 import SignInRoute from '@/app/(auth)/sign-in';
 import { assignPageLocation } from '@/components/auth/page-navigation';
 import { describeSignInError } from '@/components/auth/sign-in-screen';
+import { signInErrorCodes } from '@/shared/schemas/session';
 import { setupQueryClient } from '../helpers/api';
 import { renderRoutes } from '../helpers/render';
 
@@ -27,9 +28,11 @@ describe('SignInScreen', () => {
 
   it('shows the ?error= code from the URL as a readable message', () => {
     const { wrapper } = setupQueryClient(null);
-    renderRoutes({ 'sign-in': SignInRoute }, '/sign-in?error=state_mismatch', wrapper);
+    renderRoutes({ 'sign-in': SignInRoute }, '/sign-in?error=no_account', wrapper);
 
-    expect(screen.getByTestId('sign-in-error').textContent).toBe('Sign-in did not complete (state mismatch). Please try again.');
+    expect(screen.getByTestId('sign-in-error').textContent).toBe(
+      'There is no Trimsheet account for this sign-in. Ask an organisation admin to invite you.',
+    );
   });
 
   it('titles the page', async () => {
@@ -38,8 +41,12 @@ describe('SignInScreen', () => {
     await waitFor(() => expect(document.title).toBe('Sign in · Trimsheet'));
   });
 
-  it('words known error codes in full and never shows an empty reason', () => {
-    expect(describeSignInError('access_denied')).toBe('Sign-in was cancelled at the provider.');
+  it('has a message for every sign-in error code of the API', () => {
+    for (const code of signInErrorCodes) expect(describeSignInError(code)).not.toMatch(/did not complete/);
+  });
+
+  it('still says something readable for a code it does not know, and never an empty reason', () => {
+    expect(describeSignInError('clock_skew')).toBe('Sign-in did not complete (clock skew). Please try again.');
     expect(describeSignInError('__')).toBe('Sign-in did not complete (unknown reason). Please try again.');
   });
 });

@@ -76,8 +76,13 @@ describe('CraftScreen', () => {
     const person = await screen.findByRole('radio', { name: 'Lena Brandt' });
     // Someone already on the craft is not offered again.
     expect(screen.queryByRole('radio', { name: 'Ada Okafor' })).toBeNull();
-    fireEvent.click(person);
     fireEvent.click(screen.getByRole('radio', { name: 'Subsystem owner' }));
+    fireEvent.change(screen.getByTestId('add-member-subsystems'), { target: { value: 'Booms' } });
+    fireEvent.click(screen.getByTestId('add-member-submit'));
+    expect(await screen.findByText('Choose the person to add.')).toBeTruthy();
+
+    fireEvent.click(person);
+    fireEvent.change(screen.getByTestId('add-member-subsystems'), { target: { value: ' , ' } });
     fireEvent.click(screen.getByTestId('add-member-submit'));
     expect((await screen.findByTestId('add-member-subsystems-error')).textContent).toBe('a subsystem owner needs at least one subsystem');
 
