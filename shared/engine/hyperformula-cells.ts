@@ -21,6 +21,8 @@ export function hyperFormulaConfig(rowCount: number) {
   };
 }
 
+const COMPARISON_OPERATORS: ReadonlySet<string> = new Set(['=', '<>', '<', '>', '<=', '>=']);
+
 function cell(column: 'A' | 'B', index: number): string {
   return `$${column}$${index + 1}`;
 }
@@ -36,8 +38,11 @@ export function toHyperFormulaText(node: FormulaNode, indexOf: (key: string) => 
       return `${node.op}(${toHyperFormulaText(node.operand, indexOf)})`;
     case 'percent':
       return `(${toHyperFormulaText(node.operand, indexOf)})%`;
-    case 'binary':
-      return `(${toHyperFormulaText(node.left, indexOf)}${node.op}${toHyperFormulaText(node.right, indexOf)})`;
+    case 'binary': {
+      const text = `(${toHyperFormulaText(node.left, indexOf)}${node.op}${toHyperFormulaText(node.right, indexOf)})`;
+      // A comparison gives 1 or 0, as in the compiled evaluator, so that a row may hold one.
+      return COMPARISON_OPERATORS.has(node.op) ? `IF(${text},1,0)` : text;
+    }
     case 'call': {
       const first = node.args[0];
       if (node.name === 'PREDICTED' && first?.kind === 'ref') {

@@ -41,6 +41,62 @@ describe('compiled evaluation', () => {
     expectSameResults(evaluateCompiled(sheet, {}, { generatedCode: false }), evaluateSheet(sheet));
   });
 
+  it('agrees with HyperFormula on every function and operator a formula may use', () => {
+    const formulas = [
+      '=SQRT(x)',
+      '=POWER(x, 3)',
+      '=EXP(x)',
+      '=LN(x)',
+      '=LOG10(x)',
+      '=LOG(x)',
+      '=LOG(x, 2)',
+      '=ABS(-x)',
+      '=SIGN(-x)',
+      '=ROUND(x, 1)',
+      '=ROUND(-x)',
+      '=ROUNDUP(-x, 1)',
+      '=ROUNDDOWN(x, 2)',
+      '=MIN(x, y, 2)',
+      '=MAX(x, y)',
+      '=SUM(x, y, 1)',
+      '=AVERAGE(x, y)',
+      '=SIN(x)',
+      '=COS(x)',
+      '=TAN(x)',
+      '=ASIN(y / 10)',
+      '=ACOS(y / 10)',
+      '=ATAN(x)',
+      '=ATAN2(x, -y)',
+      '=PI()',
+      '=IF(x > y, x, y)',
+      '=IF(x = y, 1, 2)',
+      '=(x <> y) + (x <= y) + (x >= y) + (x < y)',
+      '=x > y',
+      '=-x^2',
+      '=x^-0.5',
+      '=25%',
+    ];
+    const sheet = {
+      name: 'functions',
+      parameters: [
+        { key: 'x', label: 'x', subsystem: 's', unit: '', value: 2.345 },
+        { key: 'y', label: 'y', subsystem: 's', unit: '', value: 1.5 },
+        // Inverse trigonometric functions give angles.
+        ...formulas.map((formula, index) => ({
+          key: `f_${index}`,
+          label: formula,
+          subsystem: 's',
+          unit: /^=A(SIN|COS|TAN)/.test(formula) ? 'rad' : '',
+          formula,
+        })),
+      ],
+    };
+    const reference = evaluateSheet(sheet);
+    expect(reference.errors).toEqual([]);
+    expectSameResults(evaluateCompiled(sheet), reference);
+    expectSameResults(evaluateCompiled(sheet, {}, { generatedCode: false }), reference);
+  });
+
   it('reports the same rows in error as HyperFormula', () => {
     const sheet = {
       name: 'errors',
