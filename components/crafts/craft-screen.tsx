@@ -13,14 +13,16 @@ import { ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import { mayOnCraft } from '@/shared/access/permissions';
-import type { Craft } from '@/shared/schemas/crafts';
+import { craftParamsSchema, type Craft } from '@/shared/schemas/crafts';
 import { CraftForm } from './craft-form';
 import { craftOptions, useUpdateCraft } from './queries';
 import { myRoleLabel } from './role-label';
 
 /** One craft: what it is, the caller's role, and its members. */
 export function CraftScreen({ craftId }: { craftId: string }) {
-  const craft = useQuery(craftOptions(craftId));
+  // A malformed id in the address is answered here, without asking the server about it.
+  const wellFormed = craftParamsSchema.safeParse({ craftId }).success;
+  const craft = useQuery({ ...craftOptions(craftId), enabled: wellFormed });
   const isOrgAdmin = useSessionUser()?.isOrgAdmin ?? false;
   const back = (
     <Link href="/crafts" asChild>
@@ -28,6 +30,13 @@ export function CraftScreen({ craftId }: { craftId: string }) {
     </Link>
   );
 
+  if (!wellFormed) {
+    return (
+      <Screen title="Craft" aside={back}>
+        <ErrorState title="No such craft" message={`“${craftId}” in the address is not a craft identifier.`} />
+      </Screen>
+    );
+  }
   if (craft.isPending) {
     return (
       <Screen title="Craft" aside={back}>

@@ -100,4 +100,12 @@ describe('CraftScreen', () => {
     expect(await screen.findByText('This craft does not exist, or it belongs to another organisation.')).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Try again' })).toBeNull();
   });
+
+  it('refuses a malformed craft id in the address without asking the server', async () => {
+    const fetchMock = mockFetch({});
+    const { wrapper } = setupQueryClient();
+    renderRoutes({ 'crafts/[craftId]/index': () => <CraftScreen craftId="kite-1" /> }, '/crafts/kite-1', wrapper);
+    expect(await screen.findByText('“kite-1” in the address is not a craft identifier.')).toBeTruthy();
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
 });
