@@ -3,7 +3,8 @@
  * recompute on 1,000 parameters under 2 ms; a 10,000-point sweep of one input reading three
  * outputs under 200 ms. A script, not a test: jest never runs it.
  */
-import { sweep } from '@/shared/engine/analyses';
+import { sweep, type SweepAxis } from '@/shared/engine/analyses';
+import type { Sheet } from '@/shared/schemas/sheet';
 import { evaluateSheet } from '@/shared/engine/evaluate';
 import { createSheetSession } from '@/shared/engine/session';
 import { squareSailTemplate } from '@/shared/templates';
@@ -69,31 +70,27 @@ for (const [size, runs] of [
   session.destroy();
 }
 
-{
-  const template = squareSailTemplate();
-  const outputs = ['srp_force', 'characteristic_acceleration', 'sail_temperature'];
+function benchSweep(name: string, sheet: Sheet, axis: SweepAxis, outputs: readonly string[], runs: number, target?: number): void {
   report(
-    '10,000-point sweep, square-sail template, 3 outputs',
-    time(10, () => {
-      requireOk(sweep(template, { key: 'sail_side', from: 10, to: 1000, steps: 10_000 }, outputs));
+    `10,000-point sweep, ${name}, 3 outputs`,
+    time(runs, () => {
+      requireOk(sweep(sheet, axis, outputs));
     }),
-    200,
-  );
-  const sheet = syntheticSheet(1000);
-  const last = sheet.parameters.slice(-3).map((parameter) => parameter.key);
-  report(
-    '10,000-point sweep, 1,000-parameter sheet (p_0), 3 outputs',
-    time(10, () => {
-      requireOk(sweep(sheet, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, last));
-    }),
-    200,
-  );
-  const big = syntheticSheet(10_000);
-  const bigLast = big.parameters.slice(-3).map((parameter) => parameter.key);
-  report(
-    '10,000-point sweep, 10,000-parameter sheet (p_0), 3 outputs',
-    time(3, () => {
-      requireOk(sweep(big, { key: 'p_0', from: 1, to: 100, steps: 10_000 }, bigLast));
-    }),
+    target,
   );
 }
+
+const lastThree = (sheet: Sheet): string[] => sheet.parameters.slice(-3).map((parameter) => parameter.key);
+const sweepOfFirst: SweepAxis = { key: 'p_0', from: 1, to: 100, steps: 10_000 };
+benchSweep(
+  'square-sail template',
+  squareSailTemplate(),
+  { key: 'sail_side', from: 10, to: 1000, steps: 10_000 },
+  ['srp_force', 'characteristic_acceleration', 'sail_temperature'],
+  10,
+  200,
+);
+const thousand = syntheticSheet(1000);
+benchSweep('1,000-parameter sheet (p_0)', thousand, sweepOfFirst, lastThree(thousand), 10, 200);
+const tenThousand = syntheticSheet(10_000);
+benchSweep('10,000-parameter sheet (p_0)', tenThousand, sweepOfFirst, lastThree(tenThousand), 3);
