@@ -21,13 +21,25 @@ function parseSubsystems(text: string): string[] {
     .filter((name) => name !== '');
 }
 
-function errorsFrom(error: unknown): Errors {
+/**
+ * Files one problem under its field. `path` is relative to the body (["subsystems", 2]); a problem with
+ * one subsystem names it, so the person knows which of the comma-separated entries to fix.
+ */
+function addError(errors: Errors, path: readonly PropertyKey[], message: string, names: readonly string[]): void {
+  const [field, index] = path;
+  if (field === 'role') errors.role ??= message;
+  else if (field === 'subsystems') {
+    const name = typeof index === 'number' ? names[index] : undefined;
+    errors.subsystems ??= name === undefined ? message : `“${name}”: ${message}`;
+  } else errors.form ??= message;
+}
+
+function errorsFrom(error: unknown, names: readonly string[]): Errors {
   if (!(error instanceof ApiError)) return { form: error instanceof Error ? error.message : String(error) };
   const errors: Errors = {};
   for (const detail of error.fieldErrors) {
-    const field = detail.path.split('.')[1];
-    if (field === 'role' || field === 'subsystems') errors[field] ??= detail.message;
-    else errors.form ??= detail.message;
+    const [, ...path] = detail.path.split('.').map((segment) => (/^\d+$/.test(segment) ? Number(segment) : segment));
+    addError(errors, path, detail.message, names);
   }
   if (error.fieldErrors.length === 0) errors.form = error.message;
   return errors;
@@ -61,16 +73,12 @@ export function MemberEditor({
   const [busy, setBusy] = useState(false);
 
   const submit = async () => {
-    const parsed = setMemberBodySchema.safeParse({
-      role: role ?? undefined,
-      subsystems: role === 'subsystem_owner' ? parseSubsystems(subsystems) : [],
-    });
+    const names = role === 'subsystem_owner' ? parseSubsystems(subsystems) : [];
+    const parsed = setMemberBodySchema.safeParse({ role: role ?? undefined, subsystems: names });
     if (!parsed.success) {
       const next: Errors = {};
-      for (const issue of parsed.error.issues) {
-        const field = issue.path[0] === 'role' ? 'role' : 'subsystems';
-        next[field] ??= field === 'role' ? 'choose a role' : issue.message;
-      }
+      for (const issue of parsed.error.issues)
+        addError(next, issue.path, issue.path[0] === 'role' ? 'choose a role' : issue.message, names);
       return setErrors(next);
     }
     setErrors({});
@@ -78,7 +86,7 @@ export function MemberEditor({
     try {
       await onSubmit(parsed.data);
     } catch (error) {
-      setErrors(errorsFrom(error));
+      setErrors(errorsFrom(error, names));
     } finally {
       setBusy(false);
     }

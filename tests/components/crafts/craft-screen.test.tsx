@@ -86,6 +86,12 @@ describe('CraftScreen', () => {
     fireEvent.click(screen.getByTestId('add-member-submit'));
     expect((await screen.findByTestId('add-member-subsystems-error')).textContent).toBe('a subsystem owner needs at least one subsystem');
 
+    fireEvent.change(screen.getByTestId('add-member-subsystems'), { target: { value: `Booms, ${'x'.repeat(61)}` } });
+    fireEvent.click(screen.getByTestId('add-member-submit'));
+    expect((await screen.findByTestId('add-member-subsystems-error')).textContent).toBe(
+      `“${'x'.repeat(61)}”: must be at most 60 characters`,
+    );
+
     fireEvent.change(screen.getByTestId('add-member-subsystems'), { target: { value: 'Sail membrane, Booms ,' } });
     fireEvent.click(screen.getByTestId('add-member-submit'));
     await waitFor(() => expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'PUT')).toBe(true));
