@@ -70,7 +70,7 @@ export function PeopleScreen() {
 function PersonRow({ person }: { person: Person }) {
   const setOrgAdmin = useSetOrgAdmin();
   return (
-    <View style={styles.row} testID={`person-${person.id}`}>
+    <View style={styles.row} testID={`org-person-${person.id}`}>
       <View style={styles.who}>
         <AppText variant="heading">{person.name}</AppText>
         <AppText variant="mono">{person.email}</AppText>
@@ -83,7 +83,7 @@ function PersonRow({ person }: { person: Person }) {
           value={person.isOrgAdmin}
           disabled={setOrgAdmin.isPending}
           onChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
-          testID={`person-${person.id}-admin`}
+          testID={`org-person-${person.id}-admin`}
         />
       </View>
     </View>
