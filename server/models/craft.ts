@@ -8,6 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { commonColumns } from './columns';
 import type { Membership } from './membership';
 import type { Organisation } from './organisation';
 import type { User } from './user';
@@ -25,11 +26,9 @@ export class Craft extends Model<InferAttributes<Craft>, InferCreationAttributes
   static initModel(sequelize: Sequelize) {
     Craft.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         name: { type: DataTypes.TEXT, allowNull: false },
         description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'crafts' },
     );

@@ -7,6 +7,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { commonColumns } from './columns';
 import type { User } from './user';
 
 /** One way a person signs in: a provider ('google' or 'sso') and that provider's subject identifier. */
@@ -21,11 +22,9 @@ export class Identity extends Model<InferAttributes<Identity>, InferCreationAttr
   static initModel(sequelize: Sequelize) {
     Identity.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         provider: { type: DataTypes.TEXT, allowNull: false },
         subject: { type: DataTypes.TEXT, allowNull: false },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'identities' },
     );

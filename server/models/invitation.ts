@@ -8,6 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { commonColumns } from './columns';
 import type { Organisation } from './organisation';
 import type { User } from './user';
 
@@ -26,12 +27,10 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   static initModel(sequelize: Sequelize) {
     Invitation.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         email: { type: DataTypes.TEXT, allowNull: false },
         name: { type: DataTypes.TEXT, allowNull: false },
         acceptedAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'invitations' },
     );

@@ -8,6 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { commonColumns } from './columns';
 import { craftRoles, type CraftRole } from '@/shared/schemas/roles';
 import type { Craft } from './craft';
 import type { User } from './user';
@@ -27,11 +28,9 @@ export class Membership extends Model<InferAttributes<Membership>, InferCreation
   static initModel(sequelize: Sequelize) {
     Membership.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         role: { type: DataTypes.TEXT, allowNull: false, validate: { isIn: [craftRoles as readonly string[] as string[]] } },
         subsystems: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'memberships' },
     );

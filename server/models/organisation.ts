@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { commonColumns } from './columns';
 
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
   declare id: CreationOptional<string>;
@@ -10,11 +11,9 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   static initModel(sequelize: Sequelize) {
     Organisation.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         name: { type: DataTypes.TEXT, allowNull: false },
         slug: { type: DataTypes.TEXT, allowNull: false, unique: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'organisations' },
     );

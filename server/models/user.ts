@@ -8,6 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { commonColumns } from './columns';
 import type { Organisation } from './organisation';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -23,12 +24,10 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   static initModel(sequelize: Sequelize) {
     User.init(
       {
-        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        ...commonColumns,
         email: { type: DataTypes.TEXT, allowNull: false, unique: true },
         name: { type: DataTypes.TEXT, allowNull: false },
         isOrgAdmin: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'users' },
     );
