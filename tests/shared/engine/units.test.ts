@@ -1,4 +1,4 @@
-import convert from 'convert-units';
+import convert, { type Unit } from 'convert-units';
 import { create, all } from 'mathjs';
 import { HyperFormula } from 'hyperformula';
 import { formatDimension, fromSI, normalizeUnitText, parseQuantity, parseUnit, toSI } from '@/shared/engine/units';
@@ -35,7 +35,7 @@ describe('units', () => {
     ['kPa', 'kPa', 'Pa'],
     ['psi', 'psi', 'Pa'],
     ['kW', 'kW', 'W'],
-  ])('converts %s to SI as convert-units does', (ours, theirs, siName) => {
+  ] as [string, Unit, Unit][])('converts %s to SI as convert-units does', (ours, theirs, siName) => {
     const reference = convert(3.7).from(theirs).to(siName);
     // convert-units rounds its imperial factors to about 6 digits (1 ft = 1/3.28084 m); mathjs uses the exact ones.
     expect(Math.abs(si(3.7, ours) - reference)).toBeLessThanOrEqual(1e-6 * Math.abs(reference));
