@@ -30,7 +30,6 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.test.ts'],
       moduleNameMapper: alias,
-      testTimeout: 120000,
       transform: tsJest,
       transformIgnorePatterns,
     },

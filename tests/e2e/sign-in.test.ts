@@ -15,7 +15,7 @@ describeInBrowser('signing in through the fake', () => {
 
   beforeAll(async () => {
     browser = await launchBrowser();
-  });
+  }, 60_000);
 
   afterAll(async () => {
     await browser.close();
@@ -33,7 +33,7 @@ describeInBrowser('signing in through the fake', () => {
         await page.getByTestId('craft-list').getByText('Tern').waitFor();
         await page.screenshot({ path: path.join(artifactsDir, `sign-in-${journey.provider}-${viewport.name}.png`), fullPage: true });
         await context.close();
-      });
+      }, 90_000);
     }
   }
 });

@@ -24,6 +24,8 @@ interface RouteCase {
   path: (ids: Ids) => string;
   body?: (actor: Actor) => object;
   expected: Partial<Record<Actor, number>> & { default: number };
+  /** Ends the session it is called with, so it runs on a session of its own. */
+  endsSession?: true;
 }
 
 const signedInOnly = { signedOut: 401, default: 200 };
@@ -31,7 +33,10 @@ const craftMembersOnly = { signedOut: 401, priya: 404, default: 200 };
 const adminsOnly = (allowed: number, otherOrg: number) => ({ signedOut: 401, ines: allowed, priya: otherOrg, default: 403 });
 
 const routes: RouteCase[] = [
+  { method: 'get', path: () => '/api/health', expected: { default: 200 } },
   { method: 'get', path: () => '/api/auth/session', expected: { default: 200 } },
+  { method: 'get', path: () => '/api/auth/google', expected: { default: 302 } },
+  { method: 'get', path: () => '/api/auth/sso', expected: { default: 302 } },
   { method: 'get', path: () => '/api/crafts', expected: signedInOnly },
   { method: 'post', path: () => '/api/crafts', body: (actor) => ({ name: `Matrix craft by ${actor}` }), expected: adminsOnly(201, 201) },
   { method: 'get', path: (ids) => `/api/crafts/${ids.tern}`, expected: craftMembersOnly },
@@ -53,12 +58,23 @@ const routes: RouteCase[] = [
   },
   { method: 'put', path: (ids) => `/api/organisation/people/${ids.tomas}/admin`, body: () => ({ isOrgAdmin: false }), expected: adminsOnly(200, 404) },
   { method: 'get', path: () => '/api/no-such-route', expected: { default: 404 } },
+  // Last: signing out everywhere also ends the sessions the rows above use.
+  { method: 'post', path: () => '/api/auth/sign-out', expected: { default: 204 }, endsSession: true },
+  { method: 'post', path: () => '/api/auth/sign-out-everywhere', expected: { signedOut: 401, default: 204 }, endsSession: true },
 ];
 
 let testApp: TestApp;
 let ids: Ids;
-const sessions = new Map<Actor, { agent: ReturnType<typeof request.agent>; csrfToken: string }>();
+type Session = { agent: ReturnType<typeof request.agent>; csrfToken: string };
+const sessions = new Map<Actor, Session>();
 let corvidSecrets: string[];
+
+async function startSession(actor: Actor): Promise<Session> {
+  if (actor !== 'signedOut') return signIn(testApp.app, subjectOf(actor), 'sso');
+  const agent = request.agent(testApp.app);
+  const session = await agent.get('/api/auth/session').expect(200);
+  return { agent, csrfToken: session.body.csrfToken };
+}
 
 beforeAll(async () => {
   testApp = await createTestApp();
@@ -70,12 +86,7 @@ beforeAll(async () => {
   ids = { tern: tern.id, ines: await byEmail('demo-ines'), tomas: await byEmail('demo-tomas') };
   corvidSecrets = [tern.id, 'Tern', 'Corvid', ...demoPeople.filter((p) => p.organisation === 'corvid').map((p) => p.email)];
 
-  const anonymous = request.agent(testApp.app);
-  const session = await anonymous.get('/api/auth/session').expect(200);
-  sessions.set('signedOut', { agent: anonymous, csrfToken: session.body.csrfToken });
-  for (const actor of actors.filter((a): a is Exclude<Actor, 'signedOut'> => a !== 'signedOut')) {
-    sessions.set(actor, await signIn(testApp.app, subjectOf(actor), 'sso'));
-  }
+  for (const actor of actors) sessions.set(actor, await startSession(actor));
 });
 
 afterAll(async () => {
@@ -84,7 +95,7 @@ afterAll(async () => {
 
 describe.each(routes)('$method route', (route) => {
   it.each(actors)(`answers %s as designed`, async (actor) => {
-    const session = sessions.get(actor);
+    const session = route.endsSession ? await startSession(actor) : sessions.get(actor);
     if (!session) throw new Error(`no session for ${actor}`);
     const path = route.path(ids);
     let call = session.agent[route.method](path).set('x-csrf-token', session.csrfToken);
