@@ -1,14 +1,13 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
-import type { SessionResponse, SessionUser } from '@/shared/schemas/session';
+import type { SessionResponse, SessionUser, SignInErrorCode } from '@/shared/schemas/session';
 import type { Config } from '../env';
 import { currentUser } from '../middleware/require-user';
 import type { User } from '../models';
 import type { SignInProvider } from '../services/sign-in';
 import type { Csrf } from './csrf';
 import type { Passport } from './session';
-import type { SignInErrorCode } from '@/shared/schemas/session';
 import type { SignInRefusal } from './strategies';
 
 const providers: SessionResponse['providers'] = [
