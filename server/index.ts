@@ -13,6 +13,11 @@ async function main() {
   const server = app.listen(config.port, config.host, () => {
     console.log(`[trimsheet] serving ${config.publicUrl}`);
   });
+  server.on('error', (error: NodeJS.ErrnoException) => {
+    const reason = error.code === 'EADDRINUSE' ? `port ${config.port} on ${config.host} is already in use (set PORT to another)` : error.message;
+    console.error(`[trimsheet] could not listen: ${reason}`);
+    process.exit(1);
+  });
   const shutdown = () => {
     server.close(() => {
       mailer.close();

@@ -62,7 +62,13 @@ export function startPostgres({ dataDir, port, settings = {} }: PostgresOptions)
 
   // Sockets in /tmp: the default /var/run/postgresql may not exist, and socket paths must stay short.
   const options = [`-h 127.0.0.1`, `-p ${port}`, `-k /tmp`, ...Object.entries(settings).map(([k, v]) => `-c ${k}=${v}`)];
-  pgTool('pg_ctl', ['start', '-w', '-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-o', options.join(' ')]);
+  const logFile = path.join(dataDir, 'server.log');
+  try {
+    pgTool('pg_ctl', ['start', '-w', '-D', dataDir, '-l', logFile, '-o', options.join(' ')]);
+  } catch {
+    const lastLines = fs.readFileSync(logFile, 'utf8').trim().split('\n').slice(-3).join('\n');
+    throw new Error(`PostgreSQL did not start on port ${port} (is the port in use? set TRIMSHEET_PG_PORT):\n${lastLines}`);
+  }
   return {
     url,
     stop: () => {
