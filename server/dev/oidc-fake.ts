@@ -3,7 +3,8 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import express, { type ErrorRequestHandler, type Request, type Response } from 'express';
 import { Provider, errors, interactionPolicy, type Configuration, type JWK } from 'oidc-provider';
-import { demoPeople, type DemoPerson } from '@/server/seed/demo-scenario';
+import { z } from 'zod';
+import { demoPeople } from '@/server/seed/demo-scenario';
 
 export interface OidcFakeOptions {
   port: number;
@@ -34,7 +35,32 @@ const STYLE = `
   button:hover, button:focus { border-color: #f2b84b; outline: none; }
   button small { display: block; color: #9fb0c8; }
   button.cancel { text-align: center; background: transparent; }
+  label { display: grid; gap: .25rem; color: #b8c4d6; }
+  input { font: inherit; padding: .55rem .7rem; border-radius: .4rem; border: 1px solid #2f4a73; background: #0b1524; color: inherit; }
+  h2 { font-size: 1.1rem; margin: 1.75rem 0 0; }
 `;
+
+/** Anyone else the fake signs in, e.g. to try an invitation: the subject carries their name and e-mail. */
+const guestSchema = z.object({
+  name: z.string().trim().min(1).max(120),
+  email: z.string().trim().toLowerCase().pipe(z.email()),
+});
+type Guest = z.infer<typeof guestSchema>;
+const GUEST_PREFIX = 'guest-';
+const guestSubject = (guest: Guest) => GUEST_PREFIX + Buffer.from(JSON.stringify(guest)).toString('base64url');
+
+/** The claims of a demo person or guest subject, or undefined for a subject the fake never issued. */
+function claimsOfSubject(subject: string) {
+  const person = demoPeople.find((candidate) => candidate.subject === subject);
+  if (person) return { sub: subject, email: person.email, email_verified: true, name: person.name };
+  if (!subject.startsWith(GUEST_PREFIX)) return undefined;
+  try {
+    const guest = guestSchema.parse(JSON.parse(Buffer.from(subject.slice(GUEST_PREFIX.length), 'base64url').toString()));
+    return { sub: subject, email: guest.email, email_verified: true, name: guest.name };
+  } catch {
+    return undefined;
+  }
+}
 
 function escapeHtml(text: string) {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
@@ -64,12 +90,14 @@ function loginPage(uid: string, clientId: unknown) {
     `<h1>Sign in to Trimsheet${client ? ` with ${escapeHtml(client.label)}` : ''}</h1>
 <p>Choose who you are. Every demo person is offered; no password is asked.</p>
 <form method="post" action="/interaction/${escapeHtml(uid)}/login">${people}</form>
+<h2>Someone else</h2>
+<p>To try an invitation: sign in with the name and e-mail address an organisation admin invited.</p>
+<form method="post" action="/interaction/${escapeHtml(uid)}/login">
+<label>Name <input name="name" required maxlength="120" data-testid="other-name"></label>
+<label>E-mail <input name="email" type="email" required data-testid="other-email"></label>
+<button type="submit" data-testid="person-other">Sign in as this person</button></form>
 <form method="post" action="/interaction/${escapeHtml(uid)}/cancel"><button type="submit" class="cancel" data-testid="cancel">Cancel</button></form>`,
   );
-}
-
-function claimsOf(person: DemoPerson) {
-  return { sub: person.subject, email: person.email, email_verified: true, name: person.name };
 }
 
 function signingKey(): JWK {
@@ -97,9 +125,8 @@ function providerConfiguration(publicUrl: string): Configuration {
       token_endpoint_auth_method: 'client_secret_post',
     })),
     async findAccount(_ctx, sub) {
-      const person = demoPeople.find((candidate) => candidate.subject === sub);
-      if (!person) return undefined;
-      return { accountId: person.subject, claims: () => claimsOf(person) };
+      const claims = claimsOfSubject(sub);
+      return claims && { accountId: sub, claims: () => claims };
     },
     claims: { openid: ['sub'], email: ['email', 'email_verified'], profile: ['name'] },
     // With the default, name and e-mail would reach only userinfo; the SSO client reads them from the ID token.
@@ -121,6 +148,14 @@ function providerConfiguration(publicUrl: string): Configuration {
   };
 }
 
+/** The subject the login form chose: a demo person's, or a guest's from a name and e-mail. */
+function chosenSubject(body: unknown): string | undefined {
+  const form = (body ?? {}) as Record<string, unknown>;
+  if (typeof form.subject === 'string') return demoPeople.some((p) => p.subject === form.subject) ? form.subject : undefined;
+  const guest = guestSchema.safeParse(form);
+  return guest.success ? guestSubject(guest.data) : undefined;
+}
+
 function interactionRoutes(provider: Provider) {
   const router = express.Router();
   // Only the fake's own forms are parsed here: the provider reads its endpoints' bodies itself.
@@ -133,10 +168,9 @@ function interactionRoutes(provider: Provider) {
 
   router.post('/interaction/:uid/login', form, async (req: Request, res: Response) => {
     const interaction = await provider.interactionDetails(req, res);
-    const subject: unknown = req.body?.subject;
-    const person = demoPeople.find((candidate) => candidate.subject === subject);
-    if (!person) {
-      res.status(400).type('html').send(errorPage('Unknown person', `The fake knows no demo person "${String(subject)}". Go back and choose one from the list.`));
+    const subject = chosenSubject(req.body);
+    if (!subject) {
+      res.status(400).type('html').send(errorPage('Unknown person', 'Choose a demo person from the list, or give a name and a valid e-mail address.'));
       return;
     }
     // Forget whoever signed in at the fake before, so choosing someone else is not taken for an account switch.
@@ -146,10 +180,10 @@ function interactionRoutes(provider: Provider) {
       interaction.session = undefined;
       await interaction.persist();
     }
-    const grant = new provider.Grant({ accountId: person.subject, clientId: String(interaction.params.client_id) });
+    const grant = new provider.Grant({ accountId: subject, clientId: String(interaction.params.client_id) });
     if (typeof interaction.params.scope === 'string') grant.addOIDCScope(interaction.params.scope);
     const grantId = await grant.save();
-    await provider.interactionFinished(req, res, { login: { accountId: person.subject }, consent: { grantId } }, { mergeWithLastSubmission: false });
+    await provider.interactionFinished(req, res, { login: { accountId: subject }, consent: { grantId } }, { mergeWithLastSubmission: false });
   });
 
   router.post('/interaction/:uid/cancel', async (req: Request, res: Response) => {

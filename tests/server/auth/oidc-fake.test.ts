@@ -103,7 +103,18 @@ describe('the sign-in fake', () => {
       body: 'subject=demo-nobody',
     });
     expect(response.status).toBe(400);
-    expect(await response.text()).toContain('The fake knows no demo person &quot;demo-nobody&quot;');
+    expect(await response.text()).toContain('Choose a demo person from the list');
+  });
+
+  it('answers someone else without a valid e-mail address with a clean 400 page', async () => {
+    const { url, cookie } = await openLoginPage();
+    const response = await fetch(`${url.href}/login`, {
+      method: 'POST',
+      redirect: 'manual',
+      headers: { cookie, 'content-type': 'application/x-www-form-urlencoded' },
+      body: 'name=Nadia&email=not-an-address',
+    });
+    expect(response.status).toBe(400);
   });
 
   it('answers an expired or unknown sign-in with a clean 400 page', async () => {

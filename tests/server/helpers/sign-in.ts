@@ -2,6 +2,8 @@ import type { Express } from 'express';
 import request from 'supertest';
 
 export type Provider = 'google' | 'sso';
+/** Whom to choose at the fake: a demo person's subject, 'cancel', or someone else by name and e-mail. */
+export type FakeChoice = string | { name: string; email: string };
 export type Agent = ReturnType<typeof request.agent>;
 
 /** Where a redirect response points; fails the test when it is not a redirect. */
@@ -54,13 +56,13 @@ async function followAtFake(jar: CookieJar, first: Response, from: string, callb
 
 /**
  * At the fake, from an authorization request: opens the login page, chooses the person (or presses Cancel
- * when `subject` is 'cancel') and follows the fake's redirects until they point at `callbackPath`.
+ * when the choice is 'cancel') and follows the fake's redirects until they point at `callbackPath`.
  * Returns that callback URL without visiting it.
  */
-export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, subject: string, callbackPath: string): Promise<URL> {
+export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, choice: FakeChoice, callbackPath: string): Promise<URL> {
   const loginPage = await followAtFake(jar, await visit(jar, authorizationUrl), authorizationUrl, callbackPath);
   const html = await loginPage.response.text();
-  const button = subject === 'cancel' ? 'data-testid="cancel"' : `data-testid="person-${subject}"`;
+  const button = choice === 'cancel' ? 'data-testid="cancel"' : `data-testid="person-${typeof choice === 'string' ? choice : 'other'}"`;
   const form = html.split('<form').find((part) => part.includes(button));
   const action = form && /method="post" action="([^"]+)"/.exec(form)?.[1];
   if (loginPage.response.status !== 200 || !action) {
@@ -71,7 +73,7 @@ export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, sub
   const chosen = await visit(jar, formUrl, {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams(subject === 'cancel' ? {} : { subject }).toString(),
+    body: new URLSearchParams(choice === 'cancel' ? {} : typeof choice === 'string' ? { subject: choice } : choice).toString(),
   });
   const back = await followAtFake(jar, chosen, formUrl, callbackPath);
   const callback = new URL(back.url);
@@ -83,10 +85,10 @@ export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, sub
  * Starts a sign-in with the app's agent, makes the choice at the fake (see chooseAtFake) and returns the
  * callback address (path and query) the fake sends the browser back to, without visiting it.
  */
-export async function callbackFromFake(agent: Agent, subject: string, provider: Provider): Promise<string> {
+export async function callbackFromFake(agent: Agent, choice: FakeChoice, provider: Provider): Promise<string> {
   const authorizationUrl = locationOf(await agent.get(`/api/auth/${provider}`).expect(302));
   if (!authorizationUrl.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
-  const callback = await chooseAtFake(new CookieJar(), authorizationUrl, subject, `/api/auth/${provider}/callback`);
+  const callback = await chooseAtFake(new CookieJar(), authorizationUrl, choice, `/api/auth/${provider}/callback`);
   return `${callback.pathname}${callback.search}`;
 }
 
@@ -94,11 +96,11 @@ export async function callbackFromFake(agent: Agent, subject: string, provider: 
  * Signs a demo person in through the real flow (app → sign-in fake → login page → app callback) and
  * returns an agent holding the session cookie, with the CSRF token for state-changing requests.
  */
-export async function signIn(app: Express, subject: string, provider: Provider): Promise<{ agent: Agent; csrfToken: string }> {
+export async function signIn(app: Express, choice: FakeChoice, provider: Provider): Promise<{ agent: Agent; csrfToken: string }> {
   const agent = request.agent(app);
-  const callback = await callbackFromFake(agent, subject, provider);
+  const callback = await callbackFromFake(agent, choice, provider);
   const landing = locationOf(await agent.get(callback).expect(302));
-  if (landing !== '/crafts') throw new Error(`signing ${subject} in with ${provider} ended at ${landing}`);
+  if (landing !== '/crafts') throw new Error(`signing ${JSON.stringify(choice)} in with ${provider} ended at ${landing}`);
   const session = await agent.get('/api/auth/session').expect(200);
   return { agent, csrfToken: session.body.csrfToken as string };
 }

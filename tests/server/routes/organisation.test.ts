@@ -32,6 +32,16 @@ describe('POST /api/organisation/invitations', () => {
     expect(mail?.text).toContain('/sign-in');
   });
 
+  it('lets the invited person sign in and join the organisation', async () => {
+    const email = `rafael.${Date.now()}@outside.example`;
+    await admin.agent.post('/api/organisation/invitations').set('x-csrf-token', admin.csrfToken).send({ name: 'Rafael Quint', email }).expect(201);
+    const invited = await signIn(testApp.app, { name: 'Rafael Quint', email }, 'google');
+    const session = await invited.agent.get('/api/auth/session').expect(200);
+    expect(session.body.user).toEqual(expect.objectContaining({ email, name: 'Rafael Quint', organisation: expect.objectContaining({ name: 'Corvid Sailworks' }) }));
+    const organisation = await admin.agent.get('/api/organisation').expect(200);
+    expect(organisation.body.invitations.find((i: { email: string }) => i.email === email).acceptedAt).toEqual(expect.any(String));
+  });
+
   it('says which field is wrong', async () => {
     const response = await admin.agent.post('/api/organisation/invitations').set('x-csrf-token', admin.csrfToken).send({ name: '', email: 'nope' }).expect(400);
     expect(response.body.error.details).toEqual(
