@@ -61,6 +61,9 @@ export function AppNavigation({ showPeople }: AppNavigationProps) {
         <TabTrigger name="crafts" href="/crafts" asChild>
           <NavItem label="Crafts" icon="crafts" placement={placement} testID="nav-crafts" />
         </TabTrigger>
+        <TabTrigger name="what-if" href="/what-if" asChild>
+          <NavItem label="What-if" icon="what-if" placement={placement} testID="nav-what-if" />
+        </TabTrigger>
         {showPeople ? (
           <TabTrigger name="people" href="/people" asChild>
             <NavItem label="People" icon="people" placement={placement} testID="nav-people" />

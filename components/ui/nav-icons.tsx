@@ -1,7 +1,7 @@
 import Svg, { Circle, Path } from 'react-native-svg';
 
 /** Which tab an icon stands for. */
-export type NavIconName = 'crafts' | 'people' | 'account';
+export type NavIconName = 'crafts' | 'what-if' | 'people' | 'account';
 
 /** Line icons for the navigation, drawn in the given colour. */
 export function NavIcon({ name, color, size = 22 }: { name: NavIconName; color: string; size?: number }) {
@@ -18,6 +18,7 @@ export function NavIcon({ name, color, size = 22 }: { name: NavIconName; color: 
       aria-hidden
     >
       {name === 'crafts' ? <Path d="M5 5 L20 3 L18 19 L3 21 Z M5 5 L18 19 M20 3 L3 21" /> : null}
+      {name === 'what-if' ? <Path d="M4 20 L4 4 M4 20 L20 20 M7 16 C10 15 12 9 19 7 M15 6.5 L19 7 L18 10.8" /> : null}
       {name === 'people' ? (
         <>
           <Circle cx={9} cy={8} r={3.2} />
