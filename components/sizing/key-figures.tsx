@@ -57,7 +57,7 @@ function MassFigures({ snapshot }: { snapshot: SheetSnapshot }) {
     );
   }
   const { total, systemMargin } = budget.result;
-  const share = `${formatNumber(systemMargin.percentOfAllocation, 3)} % of allocation · required ${formatNumber(systemMargin.requiredPercent, 3)} %`;
+  const share = `${formatNumber(systemMargin.percentOfAllocation, 3)} % of allocation\nrequired: ${formatNumber(systemMargin.requiredPercent, 3)} %`;
   return (
     <>
       <Figure figureKey="total_mass" label="Total mass (CBE)" value={formatQuantity(total.cbe, 'kg')} />
@@ -115,7 +115,7 @@ export function KeyFigures({ snapshot }: { snapshot: SheetSnapshot }) {
 
 const styles = StyleSheet.create({
   grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.md, paddingTop: space.xs },
-  figure: { flexGrow: 1, flexBasis: 140, minWidth: 130, gap: 2 },
+  figure: { flexGrow: 1, flexBasis: 120, minWidth: 120, gap: 2 },
   wide: { flexBasis: '100%' },
   value: { fontFamily: fonts.monoMedium, fontSize: 18, lineHeight: 24, color: colors.ink },
   missing: { color: colors.inkFaint },

@@ -95,22 +95,28 @@ export function ParameterRow({ parameter, value, error, rejection, wide, onCommi
   );
   const notes = parameter.protected === true ? [parameter.note] : [parameter.note, parameter.source && `Source: ${parameter.source}`];
   const noteLines = notes.filter((line): line is string => line !== undefined && line !== '');
+  const heading = (
+    <>
+      <AppText style={styles.label}>{parameter.label}</AppText>
+      <AppText variant="mono" style={styles.key}>
+        {parameter.key}
+      </AppText>
+    </>
+  );
   return (
     <View style={[styles.row, wide && styles.rowWide]} testID={`param-${parameter.key}`}>
       <View style={[styles.heading, wide && styles.headingWide]}>
-        <AppText style={styles.label}>{parameter.label}</AppText>
-        <AppText variant="mono" style={styles.key}>
-          {parameter.key}
-        </AppText>
         {noteLines.length > 0 ? (
-          <Disclosure label="Note" testID={`param-note-${parameter.key}`}>
+          <Disclosure label="Note" summary={heading} testID={`param-note-${parameter.key}`}>
             {noteLines.map((line) => (
               <AppText key={line} variant="muted" style={styles.small}>
                 {line}
               </AppText>
             ))}
           </Disclosure>
-        ) : null}
+        ) : (
+          heading
+        )}
       </View>
       <View style={[styles.side, wide && styles.sideWide]}>
         <ValueBlock parameter={parameter} value={value} rejection={rejection} onCommit={onCommit} />
@@ -130,7 +136,7 @@ function keptText(parameter: Parameter, value: EvaluatedValue | undefined): stri
 }
 
 const styles = StyleSheet.create({
-  row: { paddingHorizontal: space.lg, paddingVertical: space.md, gap: space.sm },
+  row: { paddingHorizontal: space.lg, paddingVertical: space.sm, gap: space.xs },
   rowWide: { flexDirection: 'row', alignItems: 'flex-start', gap: space.lg },
   heading: { gap: 2 },
   headingWide: { flex: 1 },

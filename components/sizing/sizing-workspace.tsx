@@ -67,6 +67,6 @@ const styles = StyleSheet.create({
   status: { flexBasis: 220, flexGrow: 1 },
   columns: { gap: space.xl },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  figuresWide: { width: 300 },
+  figuresWide: { width: 340 },
   listWide: { flex: 1, minWidth: 0 },
 });

@@ -1,0 +1,68 @@
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { testStack } from '../server/helpers/test-app';
+import { artifactsDir, launchBrowser, viewports } from './browser';
+
+const describeInBrowser = testStack.TEST_SKIP_BROWSER === '1' ? describe.skip : describe;
+
+async function signInAndOpenWhatIf(page: Page) {
+  await page.goto(testStack.TEST_APP_URL);
+  await page.getByTestId('sign-in-sso').click();
+  await page.getByTestId('person-demo-amara').click();
+  await page.waitForURL(/\/crafts$/);
+  await page.getByTestId('nav-what-if').click();
+  await page.waitForURL(/\/what-if$/);
+  await page.getByTestId('what-if-screen').waitFor();
+}
+
+function sailArea(page: Page): Promise<string> {
+  return page.getByTestId('key-figure-sail_area').innerText();
+}
+
+describeInBrowser('what-if sizing in the browser', () => {
+  let browser: Browser;
+
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  }, 60_000);
+
+  afterAll(async () => {
+    await browser.close();
+  });
+
+  for (const viewport of viewports) {
+    it(`recomputes the sail area from an edited side and undoes it at ${viewport.width}x${viewport.height}`, async () => {
+      const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+      const page = await context.newPage();
+      const problems: string[] = [];
+      page.on('pageerror', (error) => problems.push(error.message));
+      await signInAndOpenWhatIf(page);
+      expect(await page.title()).toBe('What-if sizing · Trimsheet');
+      // Geometry: the template's 40 m square has an area of 1600 m^2.
+      expect(await sailArea(page)).toContain('1600 m²');
+      await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}-start.png`) });
+
+      const side = page.getByTestId('param-input-sail_side');
+      await side.fill('60 m');
+      await side.press('Enter');
+      // Geometry: a 60 m square has an area of 3600 m^2.
+      await page.getByTestId('key-figure-sail_area').getByText('3600 m²').waitFor();
+      expect(await side.inputValue()).toBe('60');
+
+      await side.fill('25 kg');
+      await side.press('Enter');
+      await page.getByTestId('param-error-sail_side').getByText(/expects m but "25 kg" is kg/).waitFor();
+      expect(await sailArea(page)).toContain('3600 m²');
+      await page.getByTestId('param-sail_side').evaluate((row) => row.scrollIntoView({ block: 'center' }));
+      await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}.png`) });
+
+      await page.getByTestId('undo').click();
+      await page.getByTestId('key-figure-sail_area').getByText('1600 m²').waitFor();
+      expect(await side.inputValue()).toBe('40');
+      expect(await page.getByTestId('redo').isEnabled()).toBe(true);
+      expect(await page.getByTestId('undo').isDisabled()).toBe(true);
+      expect(problems).toEqual([]);
+      await context.close();
+    }, 90_000);
+  }
+});
