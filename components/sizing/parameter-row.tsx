@@ -35,7 +35,8 @@ function InputField({ parameter, value, rejection, onCommit }: Pick<ParameterRow
     setDraft(null);
   };
   return (
-    <View style={styles.inputLine}>
+    // The unit sits inside the field's frame, so the number and its unit read as one quantity.
+    <View style={[styles.field, rejection !== undefined && styles.fieldError]}>
       <TextInput
         value={draft ?? source}
         onChangeText={setDraft}
@@ -47,7 +48,7 @@ function InputField({ parameter, value, rejection, onCommit }: Pick<ParameterRow
         spellCheck={false}
         enterKeyHint="done"
         testID={`param-input-${parameter.key}`}
-        style={[styles.input, rejection !== undefined && styles.inputError]}
+        style={styles.input}
       />
       {unit === '' ? null : <AppText style={styles.unit}>{unit}</AppText>}
     </View>
@@ -59,7 +60,11 @@ function ValueBlock({ parameter, value, rejection, onCommit }: Pick<ParameterRow
     return (
       <View style={styles.valueBlock}>
         <AppText style={styles.number}>{value === undefined ? '—' : formatQuantity(value.value, value.unit, constantDigits)}</AppText>
-        {parameter.source !== undefined ? <AppText variant="muted" style={styles.small}>Source: {parameter.source}</AppText> : null}
+        {parameter.source !== undefined ? (
+          <AppText variant="muted" style={styles.small}>
+            Source: {parameter.source}
+          </AppText>
+        ) : null}
       </View>
     );
   }
@@ -90,9 +95,10 @@ function ValueBlock({ parameter, value, rejection, onCommit }: Pick<ParameterRow
  * its result, or a read-only constant with its source; errors beside it, the note on request.
  */
 export function ParameterRow({ parameter, value, error, rejection, wide, onCommit }: ParameterRowProps) {
-  const problems = [rejection === undefined ? undefined : `${rejection.error.message}. Kept ${keptText(parameter, value)}.`, error?.message].filter(
-    (message): message is string => message !== undefined,
-  );
+  const problems = [
+    rejection === undefined ? undefined : `${rejection.error.message}. Kept ${keptText(parameter, value)}.`,
+    error?.message,
+  ].filter((message): message is string => message !== undefined);
   const notes = parameter.protected === true ? [parameter.note] : [parameter.note, parameter.source && `Source: ${parameter.source}`];
   const noteLines = notes.filter((line): line is string => line !== undefined && line !== '');
   const heading = (
@@ -148,20 +154,26 @@ const styles = StyleSheet.create({
   number: { fontFamily: fonts.mono, fontSize: fontSizes.body, color: colors.ink },
   formula: { color: colors.inkMuted },
   small: { fontSize: fontSizes.small, lineHeight: 18 },
-  inputLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  input: {
-    flex: 1,
-    minWidth: 0,
+  field: {
+    flexDirection: 'row',
+    alignItems: 'center',
     minHeight: touchTarget,
     borderColor: colors.border,
     borderWidth: 1,
     borderRadius: radii.md,
     backgroundColor: colors.surface,
-    paddingHorizontal: space.md,
+    paddingRight: space.md,
+    gap: space.sm,
+  },
+  fieldError: { borderColor: colors.danger, backgroundColor: colors.dangerSoft },
+  input: {
+    flex: 1,
+    minWidth: 0,
+    alignSelf: 'stretch',
+    paddingLeft: space.md,
     color: colors.ink,
     fontFamily: fonts.mono,
     fontSize: fontSizes.body,
   },
-  inputError: { borderColor: colors.danger, backgroundColor: colors.dangerSoft },
-  unit: { fontFamily: fonts.mono, fontSize: fontSizes.body, color: colors.inkMuted, minWidth: 48 },
+  unit: { fontFamily: fonts.mono, fontSize: fontSizes.body, color: colors.inkMuted },
 });

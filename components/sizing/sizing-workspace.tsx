@@ -39,7 +39,9 @@ export function SizingWorkspace({ sheet, resetLabel }: SizingWorkspaceProps) {
         <Button label="Redo" tone="secondary" disabled={!snapshot.canRedo} onPress={redo} testID="redo" />
         <Button label={resetLabel} tone="quiet" onPress={reset} testID="reset-template" />
         <AppText variant="muted" aria-live="polite" style={styles.status}>
-          {recomputed === undefined ? 'Edit an input to recompute.' : `Last edit recomputed ${recomputed} ${recomputed === 1 ? 'row' : 'rows'}.`}
+          {recomputed === undefined
+            ? 'Edit an input to recompute.'
+            : `Last edit recomputed ${recomputed} ${recomputed === 1 ? 'row' : 'rows'}.`}
         </AppText>
       </View>
       <View style={[styles.columns, wide && styles.columnsWide]}>

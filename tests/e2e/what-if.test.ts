@@ -1,5 +1,5 @@
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { testStack } from '../server/helpers/test-app';
 import { artifactsDir, launchBrowser, viewports } from './browser';
 
@@ -20,49 +20,48 @@ function sailArea(page: Page): Promise<string> {
 }
 
 describeInBrowser('what-if sizing in the browser', () => {
-  let browser: Browser;
+  it.each(viewports)(
+    'recomputes the sail area from an edited side and undoes it at $width x $height',
+    async (viewport) => {
+      const browser = await launchBrowser();
+      try {
+        const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+        const page = await context.newPage();
+        const problems: string[] = [];
+        page.on('pageerror', (error) => problems.push(error.message));
+        await signInAndOpenWhatIf(page);
+        expect(await page.title()).toBe('What-if sizing · Trimsheet');
+        // Geometry: the template's 40 m square has an area of 1600 m^2.
+        expect(await sailArea(page)).toContain('1600 m²');
+        await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}-start.png`) });
 
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  }, 60_000);
+        const side = page.getByTestId('param-input-sail_side');
+        await side.fill('60 m');
+        await side.press('Enter');
+        // Geometry: a 60 m square has an area of 3600 m^2.
+        await page.getByTestId('key-figure-sail_area').getByText('3600 m²').waitFor();
+        expect(await side.inputValue()).toBe('60');
 
-  afterAll(async () => {
-    await browser.close();
-  });
+        await side.fill('25 kg');
+        await side.press('Enter');
+        await page
+          .getByTestId('param-error-sail_side')
+          .getByText(/expects m but "25 kg" is kg/)
+          .waitFor();
+        expect(await sailArea(page)).toContain('3600 m²');
+        await page.getByTestId('param-sail_side').evaluate((row) => row.scrollIntoView({ block: 'center' }));
+        await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}.png`) });
 
-  for (const viewport of viewports) {
-    it(`recomputes the sail area from an edited side and undoes it at ${viewport.width}x${viewport.height}`, async () => {
-      const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
-      const page = await context.newPage();
-      const problems: string[] = [];
-      page.on('pageerror', (error) => problems.push(error.message));
-      await signInAndOpenWhatIf(page);
-      expect(await page.title()).toBe('What-if sizing · Trimsheet');
-      // Geometry: the template's 40 m square has an area of 1600 m^2.
-      expect(await sailArea(page)).toContain('1600 m²');
-      await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}-start.png`) });
-
-      const side = page.getByTestId('param-input-sail_side');
-      await side.fill('60 m');
-      await side.press('Enter');
-      // Geometry: a 60 m square has an area of 3600 m^2.
-      await page.getByTestId('key-figure-sail_area').getByText('3600 m²').waitFor();
-      expect(await side.inputValue()).toBe('60');
-
-      await side.fill('25 kg');
-      await side.press('Enter');
-      await page.getByTestId('param-error-sail_side').getByText(/expects m but "25 kg" is kg/).waitFor();
-      expect(await sailArea(page)).toContain('3600 m²');
-      await page.getByTestId('param-sail_side').evaluate((row) => row.scrollIntoView({ block: 'center' }));
-      await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}.png`) });
-
-      await page.getByTestId('undo').click();
-      await page.getByTestId('key-figure-sail_area').getByText('1600 m²').waitFor();
-      expect(await side.inputValue()).toBe('40');
-      expect(await page.getByTestId('redo').isEnabled()).toBe(true);
-      expect(await page.getByTestId('undo').isDisabled()).toBe(true);
-      expect(problems).toEqual([]);
-      await context.close();
-    }, 90_000);
-  }
+        await page.getByTestId('undo').click();
+        await page.getByTestId('key-figure-sail_area').getByText('1600 m²').waitFor();
+        expect(await side.inputValue()).toBe('40');
+        expect(await page.getByTestId('redo').isEnabled()).toBe(true);
+        expect(await page.getByTestId('undo').isDisabled()).toBe(true);
+        expect(problems).toEqual([]);
+      } finally {
+        await browser.close();
+      }
+    },
+    120_000,
+  );
 });
