@@ -1,27 +1,15 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
-import { commonColumns } from './columns';
+import { DataTypes, type ForeignKey, type NonAttribute, type Sequelize, type CreationOptional } from 'sequelize';
+import { commonColumns, TrimsheetModel } from './columns';
 import type { Organisation } from './organisation';
 import type { User } from './user';
 
 /** An organisation admin's invitation; it is accepted when a person with that e-mail first signs in. */
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
-  declare id: CreationOptional<string>;
+export class Invitation extends TrimsheetModel<Invitation> {
   declare organisationId: ForeignKey<Organisation['id']>;
   declare invitedById: ForeignKey<User['id']>;
   declare email: string;
   declare name: string;
   declare acceptedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare invitedBy?: NonAttribute<User>;
 
   static initModel(sequelize: Sequelize) {

@@ -1,27 +1,15 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
-import { commonColumns } from './columns';
+import { DataTypes, type ForeignKey, type NonAttribute, type Sequelize, type CreationOptional } from 'sequelize';
+import { commonColumns, TrimsheetModel } from './columns';
 import { craftRoles, type CraftRole } from '@/shared/schemas/roles';
 import type { Craft } from './craft';
 import type { User } from './user';
 
 /** A person's role on one craft; subsystem owners also list the subsystems whose rows they own. */
-export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
-  declare id: CreationOptional<string>;
+export class Membership extends TrimsheetModel<Membership> {
   declare craftId: ForeignKey<Craft['id']>;
   declare userId: ForeignKey<User['id']>;
   declare role: CraftRole;
   declare subsystems: CreationOptional<string[]>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare user?: NonAttribute<User>;
   declare craft?: NonAttribute<Craft>;
 

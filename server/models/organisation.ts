@@ -1,12 +1,9 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import { commonColumns } from './columns';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { commonColumns, TrimsheetModel } from './columns';
 
-export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
-  declare id: CreationOptional<string>;
+export class Organisation extends TrimsheetModel<Organisation> {
   declare name: string;
   declare slug: string;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Organisation.init(

@@ -1,24 +1,12 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
-import { commonColumns } from './columns';
+import { DataTypes, type ForeignKey, type NonAttribute, type Sequelize, type CreationOptional } from 'sequelize';
+import { commonColumns, TrimsheetModel } from './columns';
 import type { Organisation } from './organisation';
 
-export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
-  declare id: CreationOptional<string>;
+export class User extends TrimsheetModel<User> {
   declare organisationId: ForeignKey<Organisation['id']>;
   declare email: string;
   declare name: string;
   declare isOrgAdmin: CreationOptional<boolean>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare organisation?: NonAttribute<Organisation>;
 
   static initModel(sequelize: Sequelize) {
