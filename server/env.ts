@@ -4,6 +4,16 @@ import { z } from 'zod';
 /** Development-only secrets: refused when NODE_ENV=production. */
 const DEV_SECRET = 'trimsheet-development-secret-not-for-production';
 
+/** The development defaults that production must override (they point at the local fakes). */
+const envDefaults = {
+  OIDC_ISSUER: 'http://127.0.0.1:8090',
+  OIDC_CLIENT_SECRET: 'trimsheet-sso-secret',
+  GOOGLE_CLIENT_SECRET: 'trimsheet-google-secret',
+  GOOGLE_AUTHORIZATION_URL: 'http://127.0.0.1:8090/auth',
+  GOOGLE_TOKEN_URL: 'http://127.0.0.1:8090/token',
+  GOOGLE_USERINFO_URL: 'http://127.0.0.1:8090/me/userinfo',
+};
+
 const envSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -17,15 +27,15 @@ const envSchema = z
     SESSION_COOKIE_NAME: z.string().default('trimsheet.sid'),
     SESSION_MAX_AGE_HOURS: z.coerce.number().positive().default(12),
     WEB_DIST: z.string().default(path.resolve(__dirname, '..', 'dist')),
-    OIDC_ISSUER: z.url().default('http://127.0.0.1:8090'),
+    OIDC_ISSUER: z.url().default(envDefaults.OIDC_ISSUER),
     OIDC_CLIENT_ID: z.string().default('trimsheet-sso'),
-    OIDC_CLIENT_SECRET: z.string().default('trimsheet-sso-secret'),
+    OIDC_CLIENT_SECRET: z.string().default(envDefaults.OIDC_CLIENT_SECRET),
     OIDC_ALLOW_HTTP: z.enum(['true', 'false']).optional(),
     GOOGLE_CLIENT_ID: z.string().default('trimsheet-google'),
-    GOOGLE_CLIENT_SECRET: z.string().default('trimsheet-google-secret'),
-    GOOGLE_AUTHORIZATION_URL: z.url().default('http://127.0.0.1:8090/auth'),
-    GOOGLE_TOKEN_URL: z.url().default('http://127.0.0.1:8090/token'),
-    GOOGLE_USERINFO_URL: z.url().default('http://127.0.0.1:8090/me/userinfo'),
+    GOOGLE_CLIENT_SECRET: z.string().default(envDefaults.GOOGLE_CLIENT_SECRET),
+    GOOGLE_AUTHORIZATION_URL: z.url().default(envDefaults.GOOGLE_AUTHORIZATION_URL),
+    GOOGLE_TOKEN_URL: z.url().default(envDefaults.GOOGLE_TOKEN_URL),
+    GOOGLE_USERINFO_URL: z.url().default(envDefaults.GOOGLE_USERINFO_URL),
     SMTP_HOST: z.string().default('127.0.0.1'),
     SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
     SMTP_SECURE: z.enum(['true', 'false']).default('false'),
@@ -36,8 +46,20 @@ const envSchema = z
     SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
   })
   .superRefine((env, ctx) => {
-    if (env.NODE_ENV === 'production' && env.SESSION_SECRET === DEV_SECRET) {
+    if (env.NODE_ENV !== 'production') return;
+    if (env.SESSION_SECRET === DEV_SECRET)
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'set a real SESSION_SECRET in production' });
+    // The defaults point at the local sign-in fake; production must name its real providers.
+    for (const key of [
+      'OIDC_ISSUER',
+      'OIDC_CLIENT_SECRET',
+      'GOOGLE_CLIENT_SECRET',
+      'GOOGLE_AUTHORIZATION_URL',
+      'GOOGLE_TOKEN_URL',
+      'GOOGLE_USERINFO_URL',
+    ] as const) {
+      if (env[key] === envDefaults[key])
+        ctx.addIssue({ code: 'custom', path: [key], message: `set ${key} for the real identity provider in production` });
     }
   });
 
@@ -115,7 +137,8 @@ export type StackConfig = z.infer<typeof stackEnvSchema>;
 /** Parses the local stack's settings; used only by server/dev. */
 export function loadStackConfig(env: NodeJS.ProcessEnv = process.env): StackConfig {
   const parsed = stackEnvSchema.safeParse(env);
-  if (!parsed.success) throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
+  if (!parsed.success)
+    throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
   return parsed.data;
 }
 
