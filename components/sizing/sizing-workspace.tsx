@@ -4,6 +4,7 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import type { Sheet } from '@/shared/schemas/sheet';
+import { AnalysesSection } from './analyses/analyses-section';
 import { KeyFigures } from './key-figures';
 import { ParameterList } from './parameter-list';
 import { useSheetSession } from './use-sheet-session';
@@ -57,6 +58,7 @@ export function SizingWorkspace({ sheet, resetLabel }: SizingWorkspaceProps) {
               setInput(key, text);
             }}
           />
+          <AnalysesSection snapshot={snapshot} onSetInput={(key, text) => setInput(key, text)} />
         </View>
       </View>
     </View>

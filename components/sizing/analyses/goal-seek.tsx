@@ -1,0 +1,143 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { Button } from '@/components/ui/button';
+import { ChoiceChips } from '@/components/ui/choice-chips';
+import { TextField } from '@/components/ui/text-field';
+import { AppText } from '@/components/ui/text';
+import { colors, fonts, space } from '@/components/ui/theme';
+import { goalSeek, type AnalysisResult, type GoalSeekResult } from '@/shared/engine';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { editText, formatQuantity, formatUnit } from '../format';
+import { AnalysisCard, AnalysisProblems } from './analysis-card';
+
+/** Inputs a sizing review solves for, with a range that brackets the template's designs (in each row's unit). */
+const inputs = [
+  { value: 'sail_side', label: 'Sail side', from: '10', to: '200' },
+  { value: 'film_thickness', label: 'Film thickness', from: '0.5', to: '12' },
+  { value: 'payload_mass', label: 'Payload mass', from: '0', to: '50' },
+  { value: 'bus_mass', label: 'Bus mass', from: '0', to: '50' },
+  { value: 'deployer_mass', label: 'Deployer mass', from: '0', to: '30' },
+] as const;
+
+const outputs = [
+  { value: 'characteristic_acceleration', label: 'Characteristic acceleration' },
+  { value: 'areal_density', label: 'Areal density' },
+  { value: 'lightness_number', label: 'Lightness number' },
+  { value: 'system_margin', label: 'System margin' },
+  { value: 'sail_temperature', label: 'Sail temperature' },
+] as const;
+
+type InputKey = (typeof inputs)[number]['value'];
+type OutputKey = (typeof outputs)[number]['value'];
+
+export type GoalSeekAnalysisProps = {
+  sheet: Sheet;
+  /** Sets the solved input on the live sheet (an undoable edit). */
+  onApply: (key: string, text: string) => void;
+};
+
+function unitOf(sheet: Sheet, key: string): string {
+  return formatUnit(sheet.parameters.find((parameter) => parameter.key === key)?.unit ?? '');
+}
+
+function withUnit(label: string, unit: string): string {
+  return unit === '' ? label : `${label} (${unit})`;
+}
+
+/** "Find <input> so that <output> = <target>" on the current sheet, solved when asked. */
+export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
+  const [input, setInput] = useState<InputKey>('sail_side');
+  const [output, setOutput] = useState<OutputKey>('characteristic_acceleration');
+  const [range, setRange] = useState({ from: '10', to: '200' });
+  const [target, setTarget] = useState('0.5');
+  // An answer belongs to the sheet it was solved on; after an edit it is no longer shown.
+  const [answer, setAnswer] = useState<{ sheet: Sheet; result: AnalysisResult<GoalSeekResult> } | undefined>(undefined);
+
+  const chooseInput = (key: InputKey) => {
+    const choice = inputs.find((candidate) => candidate.value === key);
+    setInput(key);
+    if (choice !== undefined) setRange({ from: choice.from, to: choice.to });
+    setAnswer(undefined);
+  };
+  const run = () => setAnswer({ sheet, result: goalSeek(sheet, { input, output, from: range.from, to: range.to, target }) });
+  const inputUnit = unitOf(sheet, input);
+  const outputUnit = unitOf(sheet, output);
+
+  return (
+    <AnalysisCard
+      title="Goal seek"
+      summary="Find the input value at which an output reaches a target, everything else as on the sheet."
+      testID="analysis-goal-seek"
+    >
+      <ChoiceChips label="Find" choices={inputs} value={input} onChange={chooseInput} testID="goal-seek-input" />
+      <ChoiceChips
+        label="So that"
+        choices={outputs}
+        value={output}
+        onChange={(key) => {
+          setOutput(key);
+          setAnswer(undefined);
+        }}
+        testID="goal-seek-output"
+      />
+      <View style={styles.fields}>
+        <View style={styles.field}>
+          <TextField
+            label={withUnit('Equals', outputUnit)}
+            value={target}
+            onChangeText={setTarget}
+            onSubmitEditing={run}
+            autoCapitalize="none"
+            testID="goal-seek-target"
+          />
+        </View>
+        <View style={styles.field}>
+          <TextField label={withUnit('Search from', inputUnit)} value={range.from} onChangeText={(from) => setRange({ ...range, from })} testID="goal-seek-from" />
+        </View>
+        <View style={styles.field}>
+          <TextField label={withUnit('to', inputUnit)} value={range.to} onChangeText={(to) => setRange({ ...range, to })} testID="goal-seek-to" />
+        </View>
+      </View>
+      <Button label="Solve" onPress={run} testID="goal-seek-run" style={styles.run} />
+      {answer?.sheet === sheet ? <GoalSeekAnswer answer={answer.result} onApply={onApply} /> : null}
+    </AnalysisCard>
+  );
+}
+
+function GoalSeekAnswer({ answer, onApply }: { answer: AnalysisResult<GoalSeekResult>; onApply: GoalSeekAnalysisProps['onApply'] }) {
+  if (!answer.ok) return <AnalysisProblems problems={answer.errors.map((error) => error.message)} testID="goal-seek-result" />;
+  const { result } = answer;
+  if (result.status === 'no_solution') {
+    return (
+      <AppText variant="error" role="alert" testID="goal-seek-result">
+        {result.message}
+      </AppText>
+    );
+  }
+  return (
+    <View style={styles.answer} aria-live="polite">
+      <View testID="goal-seek-result">
+        <AppText style={styles.solved}>
+          {result.input.key} = {formatQuantity(result.input.value, result.input.unit, 6)}
+        </AppText>
+        <AppText variant="mono">
+          gives {result.output.key} = {formatQuantity(result.output.value, result.output.unit, 6)}
+        </AppText>
+      </View>
+      <Button
+        label={`Set ${result.input.key} on the sheet`}
+        tone="secondary"
+        onPress={() => onApply(result.input.key, editText(result.input.value))}
+        testID="goal-seek-apply"
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  fields: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  field: { flexGrow: 1, flexBasis: 140 },
+  run: { alignSelf: 'flex-start' },
+  answer: { gap: space.sm },
+  solved: { fontFamily: fonts.monoMedium, fontSize: 18, lineHeight: 24, color: colors.ink },
+});

@@ -1,0 +1,183 @@
+import { fireEvent, screen, within } from '@testing-library/dom';
+import { SizingWorkspace } from '@/components/sizing/sizing-workspace';
+import { formatQuantity } from '@/components/sizing/format';
+import { evaluateSheet } from '@/shared/engine';
+import {
+  ASTRONOMICAL_UNIT,
+  DRAG_CROSSOVER_CAVEAT,
+  IDEAL_BEST_TRANSVERSE_CONE_ANGLE,
+  LOG_SPIRAL_CAVEAT,
+  REFERENCE_SAIL_OPTICS,
+  bestTransverseConeAngle,
+  closestSafeDistance,
+  dragCrossoverAltitude,
+  logSpiralTransfer,
+} from '@/shared/sail';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { squareSailTemplate } from '@/shared/templates';
+import { setupQueryClient } from '../../helpers/api';
+import { renderDom } from '../../helpers/render';
+
+function renderWorkspace(sheet: Sheet = squareSailTemplate()) {
+  const { wrapper: Wrapper } = setupQueryClient();
+  renderDom(
+    <Wrapper>
+      <SizingWorkspace sheet={sheet} resetLabel="Reset to template" />
+    </Wrapper>,
+  );
+}
+
+function text(testID: string): string {
+  return screen.getByTestId(testID).textContent ?? '';
+}
+
+function field(testID: string): HTMLInputElement {
+  const element = screen.getByTestId(testID);
+  if (!(element instanceof HTMLInputElement)) throw new Error(`${testID} is not an input`);
+  return element;
+}
+
+function type(testID: string, value: string) {
+  fireEvent.change(field(testID), { target: { value } });
+}
+
+/** Commits an edit of a sheet row, as leaving its field does. */
+function editRow(key: string, value: string) {
+  type(`param-input-${key}`, value);
+  fireEvent.focusOut(field(`param-input-${key}`));
+}
+
+function choose(groupTestID: string, label: string) {
+  fireEvent.click(within(screen.getByTestId(groupTestID)).getByRole('radio', { name: label }));
+}
+
+function numberIn(textContent: string, pattern: RegExp): number {
+  const match = pattern.exec(textContent);
+  if (match?.[1] === undefined) throw new Error(`no number matching ${String(pattern)} in "${textContent}"`);
+  return Number(match[1]);
+}
+
+const degree = Math.PI / 180;
+
+describe('AnalysesSection on the what-if workspace', () => {
+  it('marks the cone angle of largest force across the sun line near the ideal 35.26°', () => {
+    renderWorkspace();
+    const best = numberIn(text('best-transverse-cone-angle'), /([\d.]+)°/);
+    // McInnes 1999 ch. 2: ideal sail tan α = 1/√2, α = 35.26°; the optical model of the template is close.
+    expect(Math.abs(best - 35.2)).toBeLessThanOrEqual(0.2);
+    // Cross-check with the optical force model of shared/sail for the template's optics (McInnes 1999 ch. 2, after Wright 1992, from memory).
+    expect(best).toBeCloseTo(bestTransverseConeAngle({ kind: 'optical', optics: REFERENCE_SAIL_OPTICS }) / degree, 1);
+    expect(within(screen.getByTestId('analysis-cone-sweep')).getByText(/35\.26° \(McInnes 1999, Solar Sailing, ch\. 2\)/)).toBeTruthy();
+    expect(IDEAL_BEST_TRANSVERSE_CONE_ANGLE / degree).toBeCloseTo(35.26, 2);
+  });
+
+  it('solves for the sail side that gives a reachable characteristic acceleration, and applies it', () => {
+    renderWorkspace();
+    choose('goal-seek-input', 'Sail side');
+    choose('goal-seek-output', 'Characteristic acceleration');
+    type('goal-seek-target', '0.55 mm/s^2');
+    type('goal-seek-from', '10');
+    type('goal-seek-to', '200');
+    fireEvent.click(screen.getByTestId('goal-seek-run'));
+    const side = numberIn(text('goal-seek-result'), /sail_side = ([\d.]+) m/);
+    // Evaluated back on the template with that side, the sheet gives the target (1e-3 relative; the result shows 6 digits).
+    const back = evaluateSheet(squareSailTemplate(), { sail_side: side }).values.characteristic_acceleration;
+    expect(back?.unit).toBe('mm/s^2');
+    expect(Math.abs((back?.value ?? 0) - 0.55) / 0.55).toBeLessThan(1e-3);
+
+    fireEvent.click(screen.getByTestId('goal-seek-apply'));
+    expect(Number(field('param-input-sail_side').value)).toBeCloseTo(side, 3);
+    fireEvent.click(screen.getByTestId('undo'));
+    expect(field('param-input-sail_side').value).toBe('40');
+  });
+
+  it('says what range the output covers when the target cannot be reached', () => {
+    renderWorkspace();
+    type('goal-seek-target', '100');
+    fireEvent.click(screen.getByTestId('goal-seek-run'));
+    expect(text('goal-seek-result')).toMatch(/no solution: for sail_side from 10 to 200 m, characteristic_acceleration stays between .* never reaches 100 mm\/s\^2/);
+  });
+
+  it('names the row when a goal-seek range does not parse', () => {
+    renderWorkspace();
+    type('goal-seek-from', '10 kg');
+    fireEvent.click(screen.getByTestId('goal-seek-run'));
+    expect(text('goal-seek-result')).toContain('sail_side: unit "m" expects');
+  });
+
+  it('finds the closest safe distance for a 673 K film limit with the sheet optics', () => {
+    renderWorkspace();
+    // Library default: polyimide continuous service up to about 400 °C (Kapton HN datasheet, from memory).
+    expect(field('temperature-limit').value).toBe('673.15 K');
+    type('temperature-limit', '673 K');
+    // Cross-check with shared/sail at the template's cone angle 0 and its optics.
+    const expected = closestSafeDistance(673, 0, REFERENCE_SAIL_OPTICS) / ASTRONOMICAL_UNIT.value;
+    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+    // 673 K is 399.85 °C (the kelvin scale is offset by 273.15).
+    type('temperature-limit', '399.85 degC');
+    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+    type('temperature-limit', '5 kg');
+    expect(screen.getByTestId('temperature-limit-error').textContent).toContain('temperature_limit');
+  });
+
+  it('follows the edited cone angle for the temperature', () => {
+    renderWorkspace();
+    editRow('cone_angle', '60');
+    type('temperature-limit', '673 K');
+    const expected = closestSafeDistance(673, 60 * degree, REFERENCE_SAIL_OPTICS) / ASTRONOMICAL_UNIT.value;
+    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+  });
+
+  it('shows the drag crossover altitude for the sheet efficiency, with its caveat', () => {
+    renderWorkspace();
+    const crossover = dragCrossoverAltitude({ efficiency: 0.9 });
+    if (!crossover.ok) throw new Error(crossover.reason);
+    expect(text('drag-crossover-altitude')).toBe(formatQuantity(crossover.altitude / 1000, 'km'));
+    const km = numberIn(text('drag-crossover-altitude'), /([\d.]+) km/);
+    // Common practice: radiation pressure overtakes drag somewhere between about 500 and 1000 km.
+    expect(km).toBeGreaterThan(500);
+    expect(km).toBeLessThan(1000);
+    expect(text('analysis-drag-crossover-caveat')).toContain(DRAG_CROSSOVER_CAVEAT);
+  });
+
+  it('shows the Earth–Mars spiral time with its caveat, and why there is none when β is zero', () => {
+    renderWorkspace();
+    const beta = evaluateSheet(squareSailTemplate()).values.lightness_number?.value ?? Number.NaN;
+    // Mars mean orbital radius 1.524 AU (from memory).
+    const transfer = logSpiralTransfer({
+      lightnessNumber: beta,
+      coneAngle: 35.26 * degree,
+      departureRadius: ASTRONOMICAL_UNIT.value,
+      arrivalRadius: 1.524 * ASTRONOMICAL_UNIT.value,
+    });
+    if (!transfer.ok) throw new Error(transfer.reason);
+    expect(text('spiral-transfer-time')).toBe(formatQuantity(transfer.time / 86_400, 'days'));
+    expect(text('analysis-spiral-caveat')).toContain(LOG_SPIRAL_CAVEAT);
+    expect(LOG_SPIRAL_CAVEAT).toContain('First-order estimate');
+
+    editRow('sail_efficiency', '0');
+    expect(text('spiral-error')).toContain('lightness_number: is 0');
+  });
+
+  it('says why there is no spiral when the lightness number is above the largest a spiral allows', () => {
+    renderWorkspace({
+      name: 'Fast sail',
+      parameters: [{ key: 'lightness_number', label: 'Lightness number', subsystem: 'Performance', unit: '', value: 2 }],
+    });
+    // McInnes 1999 ch. 4: β_max = sin γ cos γ / (cos³α sin γ cos γ + cos²α sin α (2 − sin²γ)) at tan γ = √2, below 2 at 35.26°.
+    expect(text('spiral-error')).toContain('the largest for which a logarithmic spiral exists at cone angle 35.26°');
+    expect(screen.queryByTestId('spiral-transfer-time')).toBeNull();
+    expect(text('analysis-spiral-caveat')).toContain(LOG_SPIRAL_CAVEAT);
+  });
+
+  it('says which rows keep each analysis from running on a sheet without them', () => {
+    renderWorkspace({
+      name: 'Partial',
+      parameters: [{ key: 'sail_side', label: 'Sail side length', subsystem: 'Sail membrane', unit: 'm', value: 20 }],
+    });
+    expect(text('analysis-cone-sweep-error')).toContain('cone_angle');
+    expect(text('analysis-temperature-error')).toContain('reflectivity: the sheet has no row with this key');
+    expect(text('drag-crossover-error')).toContain('sail_efficiency');
+    expect(text('spiral-error')).toContain('lightness_number');
+  });
+});
