@@ -19,17 +19,27 @@ function sailArea(page: Page): Promise<string> {
   return page.getByTestId('key-figure-sail_area').innerText();
 }
 
+/** Opens What-if in a fresh Chromium at a viewport, runs the steps, and checks the page threw nothing. */
+async function onWhatIf(viewport: (typeof viewports)[number], steps: (page: Page) => Promise<void>) {
+  const browser = await launchBrowser();
+  try {
+    const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+    const page = await context.newPage();
+    const problems: string[] = [];
+    page.on('pageerror', (error) => problems.push(error.message));
+    await signInAndOpenWhatIf(page);
+    await steps(page);
+    expect(problems).toEqual([]);
+  } finally {
+    await browser.close();
+  }
+}
+
 describeInBrowser('what-if sizing in the browser', () => {
   it.each(viewports)(
     'recomputes the sail area from an edited side and undoes it at $width x $height',
-    async (viewport) => {
-      const browser = await launchBrowser();
-      try {
-        const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
-        const page = await context.newPage();
-        const problems: string[] = [];
-        page.on('pageerror', (error) => problems.push(error.message));
-        await signInAndOpenWhatIf(page);
+    (viewport) =>
+      onWhatIf(viewport, async (page) => {
         expect(await page.title()).toBe('What-if sizing · Trimsheet');
         // Geometry: the template's 40 m square has an area of 1600 m^2.
         expect(await sailArea(page)).toContain('1600 m²');
@@ -57,11 +67,38 @@ describeInBrowser('what-if sizing in the browser', () => {
         expect(await side.inputValue()).toBe('40');
         expect(await page.getByTestId('redo').isEnabled()).toBe(true);
         expect(await page.getByTestId('undo').isDisabled()).toBe(true);
-        expect(problems).toEqual([]);
-      } finally {
-        await browser.close();
-      }
-    },
+      }),
+    120_000,
+  );
+
+  it.each(viewports)(
+    'runs a goal seek on the template and shows the analyses at $width x $height',
+    (viewport) =>
+      onWhatIf(viewport, async (page) => {
+        const shot = (part: string) => page.screenshot({ path: path.join(artifactsDir, `what-if-analyses-${viewport.name}${part}.png`) });
+        await page.getByTestId('analyses').waitFor();
+        // McInnes 1999 ch. 2: ideal sail 35.26°; the template's optical model is close.
+        expect(await page.getByTestId('best-transverse-cone-angle').innerText()).toMatch(/^35\.\d+°$/);
+        await page.getByTestId('analysis-cone-sweep').scrollIntoViewIfNeeded();
+        await shot('-sweep');
+
+        await page.getByTestId('goal-seek-target').fill('0.55 mm/s^2');
+        await page.getByTestId('goal-seek-run').click();
+        await page
+          .getByTestId('goal-seek-result')
+          .getByText(/sail_side = [\d.]+ m/)
+          .waitFor();
+        await page.getByTestId('analysis-goal-seek').scrollIntoViewIfNeeded();
+        await shot('');
+
+        await page.getByTestId('analysis-temperature').evaluate((card) => card.scrollIntoView({ block: 'start' }));
+        await shot('-temperature');
+        await page.getByTestId('analysis-spiral').scrollIntoViewIfNeeded();
+        expect(await page.getByTestId('spiral-transfer-time').innerText()).toMatch(/days$/);
+        expect(await page.getByTestId('drag-crossover-altitude').innerText()).toMatch(/km$/);
+        expect(await page.getByTestId('closest-safe-distance').innerText()).toMatch(/AU$/);
+        await shot('-checks');
+      }),
     120_000,
   );
 });

@@ -86,8 +86,8 @@ export function ConeSweepAnalysis({ sheet }: { sheet: Sheet }) {
             testID="best-transverse-cone-angle"
           />
           <AppText variant="muted">
-            An ideal flat reflector has it at tan α = 1/√2, α = {formatNumber(degrees(IDEAL_BEST_TRANSVERSE_CONE_ANGLE), 4)}° (McInnes 1999, Solar
-            Sailing, ch. 2).
+            An ideal flat reflector has it at tan α = 1/√2, α = {formatNumber(degrees(IDEAL_BEST_TRANSVERSE_CONE_ANGLE), 4)}° (McInnes 1999,
+            Solar Sailing, ch. 2).
           </AppText>
           {swept.result.invalidPoints > 0 ? (
             <AppText variant="error">{swept.result.invalidPoints} swept points have no finite force and are left out of the chart.</AppText>

@@ -92,10 +92,20 @@ export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
           />
         </View>
         <View style={styles.field}>
-          <TextField label={withUnit('Search from', inputUnit)} value={range.from} onChangeText={(from) => setRange({ ...range, from })} testID="goal-seek-from" />
+          <TextField
+            label={withUnit('Search from', inputUnit)}
+            value={range.from}
+            onChangeText={(from) => setRange({ ...range, from })}
+            testID="goal-seek-from"
+          />
         </View>
         <View style={styles.field}>
-          <TextField label={withUnit('to', inputUnit)} value={range.to} onChangeText={(to) => setRange({ ...range, to })} testID="goal-seek-to" />
+          <TextField
+            label={withUnit('to', inputUnit)}
+            value={range.to}
+            onChangeText={(to) => setRange({ ...range, to })}
+            testID="goal-seek-to"
+          />
         </View>
       </View>
       <Button label="Solve" onPress={run} testID="goal-seek-run" style={styles.run} />

@@ -48,8 +48,9 @@ export function DragCrossoverAnalysis({ snapshot }: { snapshot: SheetSnapshot })
             testID="drag-crossover-altitude"
           />
           <AppText variant="label">
-            Density {formatQuantity(crossover.result.density, 'kg/m^3', 3)}, orbital speed {formatQuantity(crossover.result.orbitalSpeed / 1000, 'km/s')},
-            pressure {formatQuantity(crossover.result.radiationPressure, 'N/m^2', 3)}. Density table: {crossover.result.tableSource}
+            Density {formatQuantity(crossover.result.density, 'kg/m^3', 3)}, orbital speed{' '}
+            {formatQuantity(crossover.result.orbitalSpeed / 1000, 'km/s')}, pressure{' '}
+            {formatQuantity(crossover.result.radiationPressure, 'N/m^2', 3)}. Density table: {crossover.result.tableSource}
           </AppText>
         </>
       ) : (
@@ -69,7 +70,10 @@ export function SpiralAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
     if (!read.ok || !cone.ok) return { ok: false as const, problems };
     const beta = read.values.lightness_number;
     if (beta <= 0) {
-      return { ok: false as const, problems: [`lightness_number: is ${formatNumber(beta, 4)}; a spiral needs a sail that gives thrust, a lightness number above 0`] };
+      return {
+        ok: false as const,
+        problems: [`lightness_number: is ${formatNumber(beta, 4)}; a spiral needs a sail that gives thrust, a lightness number above 0`],
+      };
     }
     try {
       const result = logSpiralTransfer({
@@ -99,9 +103,14 @@ export function SpiralAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
       />
       {transfer.ok ? (
         <>
-          <ResultFigure label="Transfer time" value={formatQuantity(transfer.result.time / secondsPerDay, 'days')} testID="spiral-transfer-time" />
+          <ResultFigure
+            label="Transfer time"
+            value={formatQuantity(transfer.result.time / secondsPerDay, 'days')}
+            testID="spiral-transfer-time"
+          />
           <AppText variant="label">
-            Lightness number {formatNumber(transfer.beta, 4)}, spiral angle {formatQuantity(degrees(transfer.result.spiralAngle), 'deg', 3)}.
+            Lightness number {formatNumber(transfer.beta, 4)}, spiral angle {formatQuantity(degrees(transfer.result.spiralAngle), 'deg', 3)}
+            .
           </AppText>
         </>
       ) : (

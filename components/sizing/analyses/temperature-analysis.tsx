@@ -21,7 +21,9 @@ const limitKey = 'temperature_limit';
 export function filmTemperatureLimit(snapshot: SheetSnapshot): { value: number; materialId: string; source: string } | undefined {
   const materialId = snapshot.sheet.parameters.find((parameter) => parameter.key === 'film_density')?.material?.id;
   const limit = materialId === undefined ? undefined : materialProperty(materialId, 'temperatureLimit');
-  return materialId === undefined || limit === undefined || limit.unit !== 'K' ? undefined : { value: limit.value, materialId, source: limit.source };
+  return materialId === undefined || limit === undefined || limit.unit !== 'K'
+    ? undefined
+    : { value: limit.value, materialId, source: limit.source };
 }
 
 /** Parses a temperature typed in K (bare numbers) or °C. */
@@ -90,14 +92,14 @@ export function TemperatureAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
           />
           <Disclosure label="Temperatures as a table" testID="temperature-table-toggle">
             <DividedList testID="temperature-table">
-            {tableAu.map((au, i) => (
-              <View key={au} style={styles.row}>
-                <AppText variant="mono">{formatQuantity(au, 'AU')}</AppText>
-                <AppText variant="mono" style={styles.value}>
-                  {formatQuantity(temperatures.table[i] ?? Number.NaN, 'K')}
-                </AppText>
-              </View>
-            ))}
+              {tableAu.map((au, i) => (
+                <View key={au} style={styles.row}>
+                  <AppText variant="mono">{formatQuantity(au, 'AU')}</AppText>
+                  <AppText variant="mono" style={styles.value}>
+                    {formatQuantity(temperatures.table[i] ?? Number.NaN, 'K')}
+                  </AppText>
+                </View>
+              ))}
             </DividedList>
           </Disclosure>
         </>

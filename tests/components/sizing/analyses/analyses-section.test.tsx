@@ -95,7 +95,9 @@ describe('AnalysesSection on the what-if workspace', () => {
     renderWorkspace();
     type('goal-seek-target', '100');
     fireEvent.click(screen.getByTestId('goal-seek-run'));
-    expect(text('goal-seek-result')).toMatch(/no solution: for sail_side from 10 to 200 m, characteristic_acceleration stays between .* never reaches 100 mm\/s\^2/);
+    expect(text('goal-seek-result')).toMatch(
+      /no solution: for sail_side from 10 to 200 m, characteristic_acceleration stays between .* never reaches 100 mm\/s\^2/,
+    );
   });
 
   it('names the row when a goal-seek range does not parse', () => {
