@@ -56,22 +56,19 @@ function useTemperatures(snapshot: SheetSnapshot) {
 
 /** Sail temperature from 0.1 to 2 AU with the sheet's optics and cone angle, and the closest safe approach. */
 export function TemperatureAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
-  const library = filmTemperatureLimit(snapshot);
+  const library = useMemo(() => filmTemperatureLimit(snapshot), [snapshot]);
   const [limitText, setLimitText] = useState(library === undefined ? '' : `${formatNumber(library.value, 5)} K`);
   const temperatures = useTemperatures(snapshot);
-  const limit = useMemo(() => (limitText.trim() === '' ? undefined : parseLimit(limitText)), [limitText]);
-
-  let closest: { ok: true; au: number } | { ok: false; message: string } | undefined;
-  if (temperatures.ok && limit !== undefined) {
-    if (!limit.ok) closest = limit;
-    else {
-      try {
-        closest = { ok: true, au: closestSafeDistance(limit.value, temperatures.coneAngle, temperatures.optics) / ASTRONOMICAL_UNIT.value };
-      } catch (error) {
-        closest = { ok: false, message: `${limitKey}: ${messageOf(error)}` };
-      }
+  const limit = useMemo(() => parseLimit(limitText), [limitText]);
+  const closest = useMemo((): { ok: true; au: number } | { ok: false; message: string } | undefined => {
+    if (!temperatures.ok) return undefined;
+    if (!limit.ok) return limit;
+    try {
+      return { ok: true, au: closestSafeDistance(limit.value, temperatures.coneAngle, temperatures.optics) / ASTRONOMICAL_UNIT.value };
+    } catch (error) {
+      return { ok: false, message: `${limitKey}: ${messageOf(error)}` };
     }
-  }
+  }, [temperatures, limit]);
 
   return (
     <AnalysisCard
@@ -88,7 +85,7 @@ export function TemperatureAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
             series={[{ label: 'Film temperature', color: colors.accent, values: temperatures.curve }]}
             xLabel="Distance from the Sun (AU)"
             yLabel="Temperature (K)"
-            reference={limit?.ok === true ? { y: limit.value, label: 'Temperature limit' } : undefined}
+            reference={limit.ok ? { y: limit.value, label: 'Temperature limit' } : undefined}
           />
           <Disclosure label="Temperatures as a table" testID="temperature-table-toggle">
             <DividedList testID="temperature-table">

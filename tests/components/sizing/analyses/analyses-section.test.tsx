@@ -120,6 +120,9 @@ describe('AnalysesSection on the what-if workspace', () => {
     expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
     type('temperature-limit', '5 kg');
     expect(screen.getByTestId('temperature-limit-error').textContent).toContain('temperature_limit');
+    type('temperature-limit', '');
+    expect(screen.getByTestId('temperature-limit-error').textContent).toContain('temperature_limit: "" is not a number');
+    expect(screen.queryByTestId('closest-safe-distance')).toBeNull();
   });
 
   it('follows the edited cone angle for the temperature', () => {
