@@ -13,5 +13,7 @@ export class HttpError extends Error {
   }
 }
 
+/** 404 not_found: "<what> was not found"; also used for what the caller may not see, so its existence does not leak. */
 export const notFound = (what: string) => new HttpError(404, 'not_found', `${what} was not found`);
+/** 403 forbidden with the given message: the caller sees the thing but may not do this to it. */
 export const forbidden = (message: string) => new HttpError(403, 'forbidden', message);
