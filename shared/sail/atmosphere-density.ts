@@ -91,6 +91,3 @@ export const US_STANDARD_1976_TABLE: DensityTable = {
     [1000, 3.561e-15],
   ]),
 };
-
-/** The shipped density tables. */
-export const densityTables: readonly DensityTable[] = [VALLADO_EXPONENTIAL_TABLE, US_STANDARD_1976_TABLE];
