@@ -108,12 +108,17 @@ function toConfig(env: z.infer<typeof envSchema>) {
 
 /** Parses an environment (process.env by default) into the typed configuration, or throws naming each bad variable. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const parsed = envSchema.safeParse(env);
+  return toConfig(parseEnvironment(envSchema, env));
+}
+
+/** Parses an environment with a schema, or throws naming each bad variable. */
+function parseEnvironment<S extends z.ZodType>(schema: S, env: NodeJS.ProcessEnv): z.output<S> {
+  const parsed = schema.safeParse(env);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`).join('; ');
     throw new Error(`Invalid environment: ${problems}`);
   }
-  return toConfig(parsed.data);
+  return parsed.data;
 }
 
 const stackEnvSchema = z.object({
@@ -136,10 +141,7 @@ export type StackConfig = z.infer<typeof stackEnvSchema>;
 
 /** Parses the local stack's settings; used only by server/dev. */
 export function loadStackConfig(env: NodeJS.ProcessEnv = process.env): StackConfig {
-  const parsed = stackEnvSchema.safeParse(env);
-  if (!parsed.success)
-    throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
-  return parsed.data;
+  return parseEnvironment(stackEnvSchema, env);
 }
 
 /** The process environment, for dev tools that pass it on to child processes. */
