@@ -14,11 +14,14 @@ const envDefaults = {
   GOOGLE_USERINFO_URL: 'http://127.0.0.1:8090/me/userinfo',
 };
 
+/** A TCP port number. */
+const port = z.coerce.number().int().min(1).max(65535);
+
 const envSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
     HOST: z.string().default('127.0.0.1'),
-    PORT: z.coerce.number().int().min(1).max(65535).default(8080),
+    PORT: port.default(8080),
     PUBLIC_URL: z.url().optional(),
     TRUST_PROXY: z.string().default('loopback'),
     DATABASE_URL: z.string().default('postgres://trimsheet@127.0.0.1:5433/trimsheet'),
@@ -37,7 +40,7 @@ const envSchema = z
     GOOGLE_TOKEN_URL: z.url().default(envDefaults.GOOGLE_TOKEN_URL),
     GOOGLE_USERINFO_URL: z.url().default(envDefaults.GOOGLE_USERINFO_URL),
     SMTP_HOST: z.string().default('127.0.0.1'),
-    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+    SMTP_PORT: port.default(2525),
     SMTP_SECURE: z.enum(['true', 'false']).default('false'),
     SMTP_IGNORE_TLS: z.enum(['true', 'false']).optional(),
     SMTP_USER: z.string().optional(),
@@ -122,16 +125,16 @@ function parseEnvironment<S extends z.ZodType>(schema: S, env: NodeJS.ProcessEnv
 }
 
 const stackEnvSchema = z.object({
-  PORT: z.coerce.number().int().min(1).max(65535).default(8080),
-  TRIMSHEET_PG_PORT: z.coerce.number().int().min(1).max(65535).default(5433),
-  TRIMSHEET_OIDC_PORT: z.coerce.number().int().min(1).max(65535).default(8090),
-  TRIMSHEET_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
-  TRIMSHEET_INBOX_PORT: z.coerce.number().int().min(1).max(65535).default(8025),
-  TRIMSHEET_TEST_PORT: z.coerce.number().int().min(1).max(65535).default(8181),
-  TRIMSHEET_TEST_PG_PORT: z.coerce.number().int().min(1).max(65535).default(5434),
-  TRIMSHEET_TEST_OIDC_PORT: z.coerce.number().int().min(1).max(65535).default(8190),
-  TRIMSHEET_TEST_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2625),
-  TRIMSHEET_TEST_INBOX_PORT: z.coerce.number().int().min(1).max(65535).default(8125),
+  PORT: port.default(8080),
+  TRIMSHEET_PG_PORT: port.default(5433),
+  TRIMSHEET_OIDC_PORT: port.default(8090),
+  TRIMSHEET_SMTP_PORT: port.default(2525),
+  TRIMSHEET_INBOX_PORT: port.default(8025),
+  TRIMSHEET_TEST_PORT: port.default(8181),
+  TRIMSHEET_TEST_PG_PORT: port.default(5434),
+  TRIMSHEET_TEST_OIDC_PORT: port.default(8190),
+  TRIMSHEET_TEST_SMTP_PORT: port.default(2625),
+  TRIMSHEET_TEST_INBOX_PORT: port.default(8125),
   TRIMSHEET_DATA_DIR: z.string().default(path.resolve(__dirname, '..', '.data')),
   TRIMSHEET_SKIP_BUILD: z.enum(['0', '1']).default('0'),
 });
