@@ -231,11 +231,12 @@ export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult
     program(values);
     return fromSI(values[output.index] ?? Number.NaN, output.unit) - target.value;
   };
-  const solution = findRoot(points.values, residual);
+  const residuals = Array.from(points.values, residual);
+  const solution = findRoot(points.values, residuals, residual);
   if (solution === undefined) {
     return {
       ok: true,
-      result: { status: 'no_solution', message: noSolutionMessage(request, points.values, residual, target.value, input, output) },
+      result: { status: 'no_solution', message: noSolutionMessage(request, points.values, residuals, target.value, input, output) },
     };
   }
   const checked = evaluateSheet(sheet, { [input.key]: solution }).values[output.key];
@@ -248,8 +249,8 @@ export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult
   };
 }
 
-function findRoot(points: Float64Array, residual: (x: number) => number): number | undefined {
-  const residuals = Array.from(points, residual);
+/** The first root in a bracket of the scanned points; `residuals` are the residuals at `points`. */
+function findRoot(points: Float64Array, residuals: readonly number[], residual: (x: number) => number): number | undefined {
   for (let index = 0; index < points.length; index += 1) {
     const here = residuals[index] ?? Number.NaN;
     const x = points[index] ?? Number.NaN;
@@ -261,7 +262,8 @@ function findRoot(points: Float64Array, residual: (x: number) => number): number
     const root = bisect(residual, x, nextX, 0);
     // A sign change across a pole is no root: the residual there stays large.
     const scale = Math.max(Math.abs(here), Math.abs(next));
-    if (Math.abs(residual(root)) <= 1e-9 * scale || Math.abs(residual(root)) < 1e-12) return root;
+    const left = Math.abs(residual(root));
+    if (left <= 1e-9 * scale || left < 1e-12) return root;
   }
   return undefined;
 }
@@ -269,12 +271,12 @@ function findRoot(points: Float64Array, residual: (x: number) => number): number
 function noSolutionMessage(
   request: GoalSeekRequest,
   points: Float64Array,
-  residual: (x: number) => number,
+  residuals: readonly number[],
   target: number,
   input: Row,
   output: Row,
 ): string {
-  const reached = Array.from(points, (x) => residual(x) + target).filter(Number.isFinite);
+  const reached = residuals.map((value) => value + target).filter(Number.isFinite);
   const range = `${input.key} from ${points[0]} to ${points[points.length - 1]} ${input.unitText}`;
   if (reached.length === 0) return `${output.key} has no finite value for ${range}`;
   const low = Math.min(...reached);
