@@ -7,7 +7,7 @@ import type { Sheet } from '@/shared/schemas/sheet';
 import { formatNumber, formatQuantity, formatUnit } from '../format';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
 import { LineChart } from './line-chart';
-import { degrees, radians } from './sheet-values';
+import { angleInRadians, degrees } from './sheet-values';
 
 const forceSeries = [
   { key: 'srp_force_normal', label: 'Normal (optical)', color: colors.ink },
@@ -35,10 +35,11 @@ export function coneAngleSweep(sheet: Sheet) {
  */
 export function acrossSunLine(result: SweepResult): { values: number[]; best: number | undefined } {
   const angles = Array.from(result.input.values);
-  const unit = result.input.unit;
+  // Angle units are plain multiples of the radian, so one conversion factor serves every point.
+  const radiansPerUnit = angleInRadians(1, result.input.unit);
   const [normal, transverse] = [result.outputs[0]?.values, result.outputs[1]?.values];
   const values = angles.map((angle, i) => {
-    const alpha = unit === 'rad' ? angle : radians(angle);
+    const alpha = angle * radiansPerUnit;
     return (normal?.[i] ?? Number.NaN) * Math.sin(alpha) - (transverse?.[i] ?? Number.NaN) * Math.cos(alpha);
   });
   let top = -1;

@@ -1,3 +1,4 @@
+import { ANGLE, DIMENSIONLESS, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
 import type { OpticalCoefficients } from '@/shared/sail';
 import type { SheetSnapshot } from '../use-sheet-session';
 
@@ -56,6 +57,14 @@ export function readOptics(snapshot: SheetSnapshot): { ok: true; optics: Optical
 /** The message of anything a physics function throws (they throw RangeErrors naming the argument). */
 export function messageOf(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
+}
+
+/** A row's value in its own unit ("deg", "rad", "arcmin", …) as an angle in radians; NaN when the unit is not an angle. */
+export function angleInRadians(value: number, unit: string): number {
+  const parsed = parseUnit(unit);
+  if (!parsed.ok) return Number.NaN;
+  const { dimension } = parsed.value;
+  return sameDimension(dimension, ANGLE) || sameDimension(dimension, DIMENSIONLESS) ? toSI(value, parsed.value) : Number.NaN;
 }
 
 /** Degrees to radians. */

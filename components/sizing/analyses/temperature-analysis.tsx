@@ -11,7 +11,7 @@ import { formatNumber, formatQuantity } from '../format';
 import type { SheetSnapshot } from '../use-sheet-session';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
 import { LineChart } from './line-chart';
-import { messageOf, radians, readOptics, readValues } from './sheet-values';
+import { angleInRadians, messageOf, readOptics, readValues } from './sheet-values';
 
 const distancesAu = linspace(0.1, 2, 39);
 const tableAu = [0.1, 0.2, 0.3, 0.5, 0.7, 1, 1.5, 2];
@@ -38,8 +38,7 @@ function useTemperatures(snapshot: SheetSnapshot) {
     const cone = readValues(snapshot, ['cone_angle'] as const);
     const problems = [...(optics.ok ? [] : optics.problems), ...(cone.ok ? [] : cone.problems)];
     if (!optics.ok || !cone.ok) return { ok: false as const, problems };
-    const coneUnit = snapshot.values.cone_angle?.unit;
-    const coneAngle = coneUnit === 'rad' ? cone.values.cone_angle : radians(cone.values.cone_angle);
+    const coneAngle = angleInRadians(cone.values.cone_angle, snapshot.values.cone_angle?.unit ?? '');
     try {
       const at = (au: readonly number[]) =>
         temperatureVersusDistance(
