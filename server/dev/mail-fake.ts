@@ -47,9 +47,11 @@ export async function startMailFake({ smtpPort, httpPort, host = '127.0.0.1' }: 
   await new Promise<void>((resolve) => smtp.listen(smtpPort, host, resolve));
 
   const inbox = express();
+  // GET /messages: anyone on loopback (tests read it); every mail received so far as JSON; no errors.
   inbox.get('/messages', (_req, res) => {
     res.json({ messages });
   });
+  // GET /: anyone on loopback; the received mail as a page, to read invitations in development; no errors.
   inbox.get('/', (_req, res) => {
     const rows = messages
       .map((m) => `<li><b>${escapeHtml(m.subject)}</b> to ${escapeHtml(m.to.join(', '))}<pre>${escapeHtml(m.text)}</pre></li>`)

@@ -161,11 +161,14 @@ function interactionRoutes(provider: Provider) {
   // Only the fake's own forms are parsed here: the provider reads its endpoints' bodies itself.
   const form = express.urlencoded({ extended: false, limit: '4kb' });
 
+  // GET /interaction/:uid: the browser of a sign-in in progress; the login page; 400 when the interaction expired.
   router.get('/interaction/:uid', async (req: Request, res: Response) => {
     const interaction = await provider.interactionDetails(req, res);
     res.type('html').send(loginPage(interaction.uid, interaction.params.client_id));
   });
 
+  // POST /interaction/:uid/login: the browser of a sign-in in progress; signs the chosen person in and returns to
+  // the client; 400 for an unknown person or an expired interaction.
   router.post('/interaction/:uid/login', form, async (req: Request, res: Response) => {
     const interaction = await provider.interactionDetails(req, res);
     const subject = chosenSubject(req.body);
@@ -186,6 +189,8 @@ function interactionRoutes(provider: Provider) {
     await provider.interactionFinished(req, res, { login: { accountId: subject }, consent: { grantId } }, { mergeWithLastSubmission: false });
   });
 
+  // POST /interaction/:uid/cancel: the browser of a sign-in in progress; returns access_denied to the client;
+  // 400 when the interaction expired.
   router.post('/interaction/:uid/cancel', async (req: Request, res: Response) => {
     await provider.interactionFinished(
       req,
