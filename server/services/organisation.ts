@@ -19,9 +19,14 @@ function toInvitationDto(invitation: Invitation): InvitationDto {
   };
 }
 
+/** The person's organisation: the one the session loaded with them, else read from the database. */
+async function organisationOf(user: User): Promise<Organisation> {
+  return user.organisation ?? Organisation.findByPk(user.organisationId, { rejectOnEmpty: true });
+}
+
 /** The person's organisation and its people; invitations only for admins. */
 export async function getOrganisation(user: User): Promise<OrganisationResponse> {
-  const organisation = await Organisation.findByPk(user.organisationId, { rejectOnEmpty: true });
+  const organisation = await organisationOf(user);
   const people = await User.findAll({ where: { organisationId: user.organisationId }, order: [['name', 'ASC']] });
   const invitations = user.isOrgAdmin
     ? await Invitation.findAll({
@@ -59,7 +64,7 @@ export async function invitePerson(
     if (pending) return pending.update({ name: body.name, invitedById: admin.id }, { transaction });
     return Invitation.create({ ...body, organisationId: admin.organisationId, invitedById: admin.id }, { transaction });
   });
-  const organisation = await Organisation.findByPk(admin.organisationId, { rejectOnEmpty: true });
+  const organisation = await organisationOf(admin);
   try {
     await mailer.send({
       to: body.email,
