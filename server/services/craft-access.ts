@@ -13,7 +13,7 @@ export interface CraftAccess {
  * Loads a craft as the given person sees it. A craft of another organisation, or one the person is
  * neither a member nor an admin of, is reported as not found so its existence does not leak.
  */
-export async function loadCraftAccess(user: User, craftId: string): Promise<CraftAccess> {
+async function loadCraftAccess(user: User, craftId: string): Promise<CraftAccess> {
   const craft = await Craft.findOne({ where: { id: craftId, organisationId: user.organisationId } });
   if (!craft) throw notFound('Craft');
   const membership = await Membership.findOne({ where: { craftId, userId: user.id } });
