@@ -199,28 +199,31 @@ class Session implements SheetSession {
     const position = beforeKey === undefined ? this.rows.length : this.analysis.indexOf.get(beforeKey);
     if (position === undefined)
       return { ok: false, error: rowError(beforeKey ?? '', 'unknown_key', 'no row has this key to insert before') };
-    const parameters = this.sheet().parameters;
+    const current = this.sheet();
+    const parameters = [...current.parameters];
     parameters.splice(position, 0, parameter);
-    return this.recordSheet({ ...this.sheet(), parameters });
+    return this.recordSheet(current, { ...current, parameters });
   }
 
   removeParameter(key: string): EditResult {
     const target = this.editable(key);
     if (!target.ok) return target;
-    return this.recordSheet({ ...this.sheet(), parameters: this.sheet().parameters.filter((_, index) => index !== target.index) });
+    const current = this.sheet();
+    return this.recordSheet(current, { ...current, parameters: current.parameters.filter((_, index) => index !== target.index) });
   }
 
   setBudget(budget: Sheet['budget']): EditResult {
-    const { budget: _budget, ...rest } = this.sheet();
-    return this.recordSheet(budget === undefined ? rest : { ...rest, budget });
+    const current = this.sheet();
+    const { budget: _budget, ...rest } = current;
+    return this.recordSheet(current, budget === undefined ? rest : { ...rest, budget });
   }
 
   private record(index: number, before: Parameter, after: Parameter): EditResult {
     return this.push({ kind: 'row', index, before, after });
   }
 
-  private recordSheet(after: Sheet): EditResult {
-    return this.push({ kind: 'sheet', before: this.sheet(), after });
+  private recordSheet(before: Sheet, after: Sheet): EditResult {
+    return this.push({ kind: 'sheet', before, after });
   }
 
   private push(edit: Edit): EditResult {
