@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { describeIssues } from '@/shared/schemas/common';
 
 /** Development-only secrets: refused when NODE_ENV=production. */
 const DEV_SECRET = 'trimsheet-development-secret-not-for-production';
@@ -118,8 +119,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
 function parseEnvironment<S extends z.ZodType>(schema: S, env: NodeJS.ProcessEnv): z.output<S> {
   const parsed = schema.safeParse(env);
   if (!parsed.success) {
-    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`).join('; ');
-    throw new Error(`Invalid environment: ${problems}`);
+    throw new Error(`Invalid environment: ${describeIssues(parsed.error.issues)}`);
   }
   return parsed.data;
 }

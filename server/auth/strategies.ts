@@ -5,6 +5,7 @@ import { Strategy as GoogleStrategy } from 'passport-google-oauth20';
 import { z } from 'zod';
 import type { Config } from '../env';
 import { findUserForSignIn, type SignInProvider } from '../services/sign-in';
+import { describeIssues } from '@/shared/schemas/common';
 import type { SignInErrorCode } from '@/shared/schemas/session';
 import type { Passport } from './session';
 
@@ -29,7 +30,7 @@ const providerClaimsSchema = z.object({
 async function signInFromClaims(provider: SignInProvider, raw: unknown): Promise<{ user: Express.User } | { refusal: SignInRefusal }> {
   const parsed = providerClaimsSchema.safeParse(raw);
   if (!parsed.success) {
-    const where = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`).join('; ');
+    const where = describeIssues(parsed.error.issues);
     const code = parsed.error.issues.some((issue) => issue.path[0] === 'email') ? 'missing_email' : 'provider_error';
     return { refusal: { code, message: `The ${provider} sign-in gave unusable claims (${where})` } };
   }

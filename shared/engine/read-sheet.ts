@@ -1,3 +1,4 @@
+import { describeIssues } from '@/shared/schemas/common';
 import { parameterSchema, sheetHeaderSchema, sheetSchema, type Parameter, type Sheet } from '@/shared/schemas/sheet';
 
 /** A problem in a sheet file: the key of the row (or "" for the sheet itself), a code and a message. */
@@ -5,12 +6,6 @@ export interface SheetFileError {
   readonly key: string;
   readonly code: 'invalid_sheet' | 'invalid_parameter';
   readonly message: string;
-}
-
-function issuesText(issues: readonly { path: readonly PropertyKey[]; message: string }[]): string {
-  return issues
-    .map((issue) => (issue.path.length > 0 ? `${issue.path.map(String).join('.')}: ${issue.message}` : issue.message))
-    .join('; ');
 }
 
 /**
@@ -24,7 +19,7 @@ export function readSheet(data: unknown): { sheet: Sheet | undefined; errors: Sh
   const outline = sheetHeaderSchema.safeParse(data);
   const rawParameters = typeof data === 'object' && data !== null && 'parameters' in data ? data.parameters : undefined;
   if (!outline.success || !Array.isArray(rawParameters)) {
-    const detail = outline.success ? 'parameters: must be a list of parameters' : issuesText(outline.error.issues);
+    const detail = outline.success ? 'parameters: must be a list of parameters' : describeIssues(outline.error.issues);
     return { sheet: undefined, errors: [{ key: '', code: 'invalid_sheet', message: `not a sheet: ${detail}` }] };
   }
   const errors: SheetFileError[] = [];
@@ -36,7 +31,7 @@ export function readSheet(data: unknown): { sheet: Sheet | undefined; errors: Sh
       return;
     }
     const key = typeof raw === 'object' && raw !== null && 'key' in raw && typeof raw.key === 'string' ? raw.key : `parameters[${index}]`;
-    errors.push({ key, code: 'invalid_parameter', message: `${key}: ${issuesText(parsed.error.issues)}` });
+    errors.push({ key, code: 'invalid_parameter', message: `${key}: ${describeIssues(parsed.error.issues)}` });
   });
   return { sheet: { ...outline.data, parameters }, errors };
 }

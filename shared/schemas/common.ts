@@ -21,3 +21,10 @@ export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
 /** Field-by-field validation details: a path such as "body.name" and what is wrong there. */
 export const fieldErrorSchema = z.object({ path: z.string(), message: z.string() });
 export type FieldError = z.infer<typeof fieldErrorSchema>;
+
+/** Zod issues as one line, each with its path: "PORT: expected number; name: must not be empty". */
+export function describeIssues(issues: readonly { path: readonly PropertyKey[]; message: string }[]): string {
+  return issues
+    .map((issue) => (issue.path.length > 0 ? `${issue.path.map(String).join('.')}: ${issue.message}` : issue.message))
+    .join('; ');
+}
