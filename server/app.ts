@@ -43,7 +43,9 @@ export function createApp(deps: AppDeps): Express {
   app.use(cookieParser());
 
   const auth = createAuth({ config, sequelize: deps.sequelize });
-  app.use(auth.session);
+  // Only the API reads the session: the web app's files and pages are the same for everyone, so they
+  // cost no session lookup in PostgreSQL.
+  app.use('/api', auth.session);
 
   // GET /api/health: anyone; 200 when the database answers.
   app.get('/api/health', async (_req, res) => {

@@ -8,7 +8,7 @@ import { googleStrategy, ssoStrategyLoader } from './strategies';
 
 
 export interface Auth {
-  /** Session cookie and passport, in order; mount after cookie-parser and before every route. */
+  /** Session cookie and passport, in order; mount on /api after cookie-parser, before the API routes. */
   session: RequestHandler[];
   /** CSRF check on every state-changing request; mount on /api before the routers. */
   csrfProtection: RequestHandler;
