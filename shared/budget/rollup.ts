@@ -22,7 +22,7 @@ function rollUpRow(row: BudgetRowInput, index: number, preset: AllowancePreset):
     const allowance = growthAllowance(preset, row.maturity, row.category);
     return { ...row, allowance, predicted: predictedMass(row.cbe, allowance) };
   } catch (error) {
-    if (error instanceof BudgetInputError) throw new BudgetInputError(`${where}.${error.path}`, error.detail);
+    if (error instanceof BudgetInputError) throw new BudgetInputError(`${where}.${error.path}`, error.detail, row.key);
     throw error;
   }
 }
@@ -54,7 +54,7 @@ export function rollUpBudget(
   }
   const seen = new Set<string>();
   rows.forEach((row, index) => {
-    if (seen.has(row.key)) throw new BudgetInputError(`rows[${index}].key`, `duplicate key '${row.key}'`);
+    if (seen.has(row.key)) throw new BudgetInputError(`rows[${index}].key`, `duplicate key '${row.key}'`, row.key);
     seen.add(row.key);
   });
 

@@ -96,12 +96,13 @@ export interface BudgetIssue {
 
 /**
  * Thrown for bad budget input; `path` says where (e.g. "rows[2].maturity"), `detail` says what,
- * and the message joins the two.
+ * and the message joins the two. `rowKey` is the key of the budget row at fault, when one is.
  */
 export class BudgetInputError extends RangeError {
   constructor(
     readonly path: string,
     readonly detail: string,
+    readonly rowKey?: string,
   ) {
     super(`${path}: ${detail}`);
     this.name = 'BudgetInputError';

@@ -50,7 +50,7 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey 
     };
   } catch (error) {
     if (!(error instanceof BudgetInputError)) throw error;
-    const row = /\('([^']*)'\)/.exec(error.path)?.[1] ?? (error.path === 'allocation' ? allocationKey : '');
+    const row = error.rowKey ?? (error.path === 'allocation' ? allocationKey : '');
     return { ok: false, errors: [rowError(row, 'budget_error', error.message)] };
   }
 }
