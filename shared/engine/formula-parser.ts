@@ -89,10 +89,51 @@ function describeToken(token: Token): string {
   }
 }
 
+/**
+ * How deep a formula may nest (brackets, calls, signs, and chains of operators). The engine walks formulas
+ * recursively, so a formula far deeper than any sizing needs must be refused with a message, not overflow
+ * the stack.
+ */
+const MAX_FORMULA_DEPTH = 64;
+
+const tooDeep = () => new FormulaSyntaxError(`the formula nests deeper than ${MAX_FORMULA_DEPTH} levels; split it over several rows`);
+
+/** How deep a parsed tree is, walked without recursion. */
+function treeDepth(root: FormulaNode): number {
+  let deepest = 0;
+  const pending: [FormulaNode, number][] = [[root, 1]];
+  for (let item = pending.pop(); item !== undefined; item = pending.pop()) {
+    const [node, depth] = item;
+    deepest = Math.max(deepest, depth);
+    const children =
+      node.kind === 'binary'
+        ? [node.left, node.right]
+        : node.kind === 'call'
+          ? node.args
+          : node.kind === 'unary' || node.kind === 'percent'
+            ? [node.operand]
+            : [];
+    for (const child of children) pending.push([child, depth + 1]);
+  }
+  return deepest;
+}
+
 class Parser {
   private position = 0;
+  private nesting = 0;
 
   constructor(private readonly tokens: readonly Token[]) {}
+
+  /** Runs one level of the recursive descent, refusing a formula that nests too deep for it. */
+  private nested<T>(parse: () => T): T {
+    if (this.nesting >= MAX_FORMULA_DEPTH) throw tooDeep();
+    this.nesting += 1;
+    try {
+      return parse();
+    } finally {
+      this.nesting -= 1;
+    }
+  }
 
   private peek(): Token {
     return this.tokens[this.position] ?? { kind: 'end', at: 0 };
@@ -117,10 +158,16 @@ class Parser {
     const node = this.parseBinary(1);
     const token = this.peek();
     if (token.kind !== 'end') this.fail(token, 'an operator or end of formula');
+    // A long chain such as a+b+c+… is parsed in a loop but still gives a deep tree.
+    if (treeDepth(node) > MAX_FORMULA_DEPTH) throw tooDeep();
     return node;
   }
 
   private parseBinary(minPrecedence: number): FormulaNode {
+    return this.nested(() => this.parseBinaryLevel(minPrecedence));
+  }
+
+  private parseBinaryLevel(minPrecedence: number): FormulaNode {
     let left = this.parsePostfix();
     for (;;) {
       const token = this.peek();
@@ -144,7 +191,7 @@ class Parser {
   private parseUnary(): FormulaNode {
     if (this.isOp('-') || this.isOp('+')) {
       const op = this.next();
-      return { kind: 'unary', op: op.kind === 'op' && op.text === '-' ? '-' : '+', operand: this.parseUnary() };
+      return { kind: 'unary', op: op.kind === 'op' && op.text === '-' ? '-' : '+', operand: this.nested(() => this.parseUnary()) };
     }
     return this.parsePrimary();
   }

@@ -57,4 +57,19 @@ describe('parseFormula', () => {
   ])('refuses %s: %s', (text, message) => {
     expect(() => parseFormula(text)).toThrow(new FormulaSyntaxError(message));
   });
+
+  it.each([
+    ['brackets', `=${'('.repeat(20_000)}a${')'.repeat(20_000)}`],
+    ['calls', `=${'ABS('.repeat(20_000)}a${')'.repeat(20_000)}`],
+    ['signs', `=${'-'.repeat(20_000)}a`],
+    ['a chain of operators', `=${Array(20_000).fill('a').join('+')}`],
+  ])('refuses a formula nested too deep (%s) with a syntax error, not a stack overflow', (_what, text) => {
+    const deep = new FormulaSyntaxError('the formula nests deeper than 64 levels; split it over several rows');
+    expect(() => parseFormula(text)).toThrow(deep);
+  });
+
+  it('accepts a chain of 64 terms, which HyperFormula still parses', () => {
+    const text = `=${Array(64).fill('a').join('+')}`;
+    expect(hf.calculateFormula(`=${toHyperFormulaText(parseFormula(text), () => 0).replace(/\$A\$1/g, '1')}`, 0)).toBe(64);
+  });
 });
