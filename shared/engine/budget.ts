@@ -1,6 +1,6 @@
 import { rollUpBudget } from '@/shared/budget/rollup';
 import { BudgetInputError, type BudgetRollUp, type BudgetRowInput } from '@/shared/budget/types';
-import type { Sheet } from '@/shared/schemas/sheet';
+import type { Parameter, Sheet } from '@/shared/schemas/sheet';
 import type { AnalysisResult } from '@/shared/engine/analyses';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import type { Evaluation } from '@/shared/engine/evaluate';
@@ -17,8 +17,11 @@ export const MASS_ALLOCATION_KEY = 'mass_allocation';
  */
 export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey = MASS_ALLOCATION_KEY): AnalysisResult<BudgetRollUp> {
   const errors: EngineError[] = [];
+  // The first row of each key, as a sheet with duplicate keys is read everywhere else.
+  const byKey = new Map<string, Parameter>();
+  for (const parameter of sheet.parameters) if (!byKey.has(parameter.key)) byKey.set(parameter.key, parameter);
   const inKilograms = (key: string): number | undefined => {
-    const parameter = sheet.parameters.find((candidate) => candidate.key === key);
+    const parameter = byKey.get(key);
     const value = evaluation.values[key];
     const unit = parameter === undefined ? undefined : parseUnit(parameter.unit);
     if (parameter === undefined) errors.push(rowError(key, 'unknown_key', 'no row has this key'));
