@@ -111,6 +111,7 @@ class Session implements SheetSession {
 
   /** Replaces the whole sheet: new analysis and a new workbook. */
   private load(sheet: Sheet): EditResult {
+    this.rowErrors = undefined;
     this.workbook.destroy();
     this.budget = sheet.budget;
     this.analysis = analyseSheet(sheet);
@@ -132,8 +133,12 @@ class Session implements SheetSession {
     return [cellContent(row, this.analysis.graph.cycles.has(index), this.cellIndex), row.allowance ?? null];
   }
 
+  /** Each row's error, worked out once per state of the sheet: values() and errors() both read it. */
+  private rowErrors: (EngineError | undefined)[] | undefined;
+
   private states(): (EngineError | undefined)[] {
-    return rowStates(this.analysis, (index) => this.results[index]);
+    this.rowErrors ??= rowStates(this.analysis, (index) => this.results[index]);
+    return this.rowErrors;
   }
 
   values(): Record<string, EvaluatedValue> {
@@ -266,6 +271,7 @@ class Session implements SheetSession {
   private apply(index: number, parameter: Parameter): EditResult {
     const old = this.rows[index];
     if (old === undefined) return { ok: false, error: rowError(parameter.key, 'unknown_key', 'no row has this key') };
+    this.rowErrors = undefined;
     this.analysis.parameters[index] = parameter;
     reanalyseRow(this.analysis, index);
     const touched = new Set<number>([index]);
