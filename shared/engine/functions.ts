@@ -131,6 +131,11 @@ function round(digits: number, value: number, mode: (x: number) => number): numb
   return (Math.sign(value) * mode(Math.abs(value) * scale)) / scale;
 }
 
+/** ROUND, ROUNDUP or ROUNDDOWN: (value, digits = 0) with the magnitude rounded by `mode`. */
+function rounding(name: string, mode: (x: number) => number): SheetFunction {
+  return { minArgs: 1, maxArgs: 2, dimension: requireDimensionless(name), evaluate: (value, digits = 0) => round(digits, value, mode) };
+}
+
 /** Every function a sheet formula may call, by its upper-case name. */
 export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
   SQRT: {
@@ -159,24 +164,9 @@ export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
   ABS: { minArgs: 1, maxArgs: 1, dimension: sameAsFirst('ABS'), evaluate: Math.abs, inline: mathCall('abs') },
   SIGN: { minArgs: 1, maxArgs: 1, dimension: () => DIMENSIONLESS, evaluate: Math.sign },
   // Rounding depends on the unit a value is written in, and formulas run in SI: only pure numbers may be rounded.
-  ROUND: {
-    minArgs: 1,
-    maxArgs: 2,
-    dimension: requireDimensionless('ROUND'),
-    evaluate: (value, digits = 0) => round(digits, value, Math.round),
-  },
-  ROUNDUP: {
-    minArgs: 1,
-    maxArgs: 2,
-    dimension: requireDimensionless('ROUNDUP'),
-    evaluate: (value, digits = 0) => round(digits, value, Math.ceil),
-  },
-  ROUNDDOWN: {
-    minArgs: 1,
-    maxArgs: 2,
-    dimension: requireDimensionless('ROUNDDOWN'),
-    evaluate: (value, digits = 0) => round(digits, value, Math.floor),
-  },
+  ROUND: rounding('ROUND', Math.round),
+  ROUNDUP: rounding('ROUNDUP', Math.ceil),
+  ROUNDDOWN: rounding('ROUNDDOWN', Math.floor),
   MIN: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MIN'), evaluate: Math.min, inline: mathCall('min') },
   MAX: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('MAX'), evaluate: Math.max, inline: mathCall('max') },
   SUM: { minArgs: 1, maxArgs: 255, dimension: sameAsFirst('SUM'), evaluate: (...values) => values.reduce((sum, value) => sum + value, 0) },
