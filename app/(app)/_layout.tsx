@@ -1,8 +1,6 @@
-import { useSessionUser } from '@/components/auth/queries';
-import { AppNavigation } from '@/components/ui/app-navigation';
+import { SignedInNavigation } from '@/components/auth/signed-in-navigation';
 
-/** Signed-in area: the tab navigation; People only for organisation admins. */
+/** Signed-in area: the tab navigation. */
 export default function AppLayout() {
-  const user = useSessionUser();
-  return <AppNavigation showPeople={user?.isOrgAdmin ?? false} />;
+  return <SignedInNavigation />;
 }
