@@ -38,12 +38,12 @@ export function craftsRouter({ sequelize }: AppDeps): Router {
 
   // PUT /api/crafts/:craftId/members/:userId: organisation admins; 400, 403, 404, 409 last_chief_engineer.
   router.put('/:craftId/members/:userId', validate({ params: memberParamsSchema, body: setMemberBodySchema }), async (req, res) => {
-    res.json(await setMember(currentUser(req), req.params.craftId, req.params.userId, req.body));
+    res.json(await setMember(sequelize, currentUser(req), req.params.craftId, req.params.userId, req.body));
   });
 
   // DELETE /api/crafts/:craftId/members/:userId: organisation admins; 403, 404, 409 last_chief_engineer.
   router.delete('/:craftId/members/:userId', validate({ params: memberParamsSchema }), async (req, res) => {
-    await removeMember(currentUser(req), req.params.craftId, req.params.userId);
+    await removeMember(sequelize, currentUser(req), req.params.craftId, req.params.userId);
     res.status(204).end();
   });
 

@@ -20,9 +20,14 @@ export function organisationRouter({ sequelize, mailer, config }: AppDeps): Rout
   });
 
   // PUT /api/organisation/people/:userId/admin: organisation admins; 400, 403, 404, 409 last_admin.
-  router.put('/people/:userId/admin', requireOrgAdmin, validate({ params: personParamsSchema, body: setOrgAdminBodySchema }), async (req, res) => {
-    res.json(await setOrgAdmin(currentUser(req), req.params.userId, req.body.isOrgAdmin));
-  });
+  router.put(
+    '/people/:userId/admin',
+    requireOrgAdmin,
+    validate({ params: personParamsSchema, body: setOrgAdminBodySchema }),
+    async (req, res) => {
+      res.json(await setOrgAdmin(sequelize, currentUser(req), req.params.userId, req.body.isOrgAdmin));
+    },
+  );
 
   return router;
 }

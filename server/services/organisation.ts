@@ -44,7 +44,7 @@ export async function getOrganisation(user: User): Promise<OrganisationResponse>
 
 /**
  * Records an invitation and e-mails it. The invitation is accepted when someone with that e-mail first
- * signs in. The mail goes out after the row is committed; if sending fails the invitation stays and the
+ * signs in (someone who already belongs to another organisation stays there; the invitation stays open). The mail goes out after the row is committed; if sending fails the invitation stays and the
  * admin is told so, and can send it again.
  */
 export async function invitePerson(
@@ -54,13 +54,18 @@ export async function invitePerson(
   admin: User,
   body: InviteBody,
 ): Promise<InvitationDto> {
-  if (await User.findOne({ where: { email: body.email } })) {
-    throw new HttpError(409, 'already_a_person', `${body.email} already has a Trimsheet account`, [
-      { path: 'body.email', message: 'already has a Trimsheet account' },
+  // Only a member of the admin's own organisation is refused: answering differently for another
+  // organisation's people would let admins probe who has an account elsewhere.
+  if (await User.findOne({ where: { email: body.email, organisationId: admin.organisationId } })) {
+    throw new HttpError(409, 'already_a_person', `${body.email} is already in your organisation`, [
+      { path: 'body.email', message: 'is already in your organisation' },
     ]);
   }
   const invitation = await sequelize.transaction(async (transaction) => {
-    const pending = await Invitation.findOne({ where: { email: body.email, organisationId: admin.organisationId, acceptedAt: null }, transaction });
+    const pending = await Invitation.findOne({
+      where: { email: body.email, organisationId: admin.organisationId, acceptedAt: null },
+      transaction,
+    });
     if (pending) return pending.update({ name: body.name, invitedById: admin.id }, { transaction });
     return Invitation.create({ ...body, organisationId: admin.organisationId, invitedById: admin.id }, { transaction });
   });
@@ -83,13 +88,19 @@ export async function invitePerson(
   return toInvitationDto(invitation);
 }
 
-/** Grants or withdraws organisation admin rights; the organisation always keeps one admin. */
-export async function setOrgAdmin(admin: User, personId: string, isOrgAdmin: boolean): Promise<Person> {
-  const person = await User.findOne({ where: { id: personId, organisationId: admin.organisationId } });
-  if (!person) throw notFound('Person');
-  if (!isOrgAdmin && person.isOrgAdmin) {
-    const admins = await User.count({ where: { organisationId: admin.organisationId, isOrgAdmin: true } });
-    if (admins <= 1) throw new HttpError(409, 'last_admin', 'The organisation keeps at least one admin; appoint another first');
-  }
-  return toPersonDto(await person.update({ isOrgAdmin }));
+/**
+ * Grants or withdraws organisation admin rights; the organisation always keeps one admin. The
+ * organisation's row is locked so that two withdrawals at the same moment cannot both pass the check.
+ */
+export async function setOrgAdmin(sequelize: Sequelize, admin: User, personId: string, isOrgAdmin: boolean): Promise<Person> {
+  return sequelize.transaction(async (transaction) => {
+    await Organisation.findByPk(admin.organisationId, { lock: transaction.LOCK.UPDATE, transaction });
+    const person = await User.findOne({ where: { id: personId, organisationId: admin.organisationId }, transaction });
+    if (!person) throw notFound('Person');
+    if (!isOrgAdmin && person.isOrgAdmin) {
+      const admins = await User.count({ where: { organisationId: admin.organisationId, isOrgAdmin: true }, transaction });
+      if (admins <= 1) throw new HttpError(409, 'last_admin', 'The organisation keeps at least one admin; appoint another first');
+    }
+    return toPersonDto(await person.update({ isOrgAdmin }, { transaction }));
+  });
 }

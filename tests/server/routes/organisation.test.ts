@@ -34,16 +34,26 @@ describe('POST /api/organisation/invitations', () => {
 
   it('lets the invited person sign in and join the organisation', async () => {
     const email = `rafael.${Date.now()}@outside.example`;
-    await admin.agent.post('/api/organisation/invitations').set('x-csrf-token', admin.csrfToken).send({ name: 'Rafael Quint', email }).expect(201);
+    await admin.agent
+      .post('/api/organisation/invitations')
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ name: 'Rafael Quint', email })
+      .expect(201);
     const invited = await signIn(testApp.app, { name: 'Rafael Quint', email }, 'google');
     const session = await invited.agent.get('/api/auth/session').expect(200);
-    expect(session.body.user).toEqual(expect.objectContaining({ email, name: 'Rafael Quint', organisation: expect.objectContaining({ name: 'Corvid Sailworks' }) }));
+    expect(session.body.user).toEqual(
+      expect.objectContaining({ email, name: 'Rafael Quint', organisation: expect.objectContaining({ name: 'Corvid Sailworks' }) }),
+    );
     const organisation = await admin.agent.get('/api/organisation').expect(200);
     expect(organisation.body.invitations.find((i: { email: string }) => i.email === email).acceptedAt).toEqual(expect.any(String));
   });
 
   it('says which field is wrong', async () => {
-    const response = await admin.agent.post('/api/organisation/invitations').set('x-csrf-token', admin.csrfToken).send({ name: '', email: 'nope' }).expect(400);
+    const response = await admin.agent
+      .post('/api/organisation/invitations')
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ name: '', email: 'nope' })
+      .expect(400);
     expect(response.body.error.details).toEqual(
       expect.arrayContaining([
         { path: 'body.email', message: 'must be an e-mail address' },
@@ -52,7 +62,16 @@ describe('POST /api/organisation/invitations', () => {
     );
   });
 
-  it('refuses someone who already has an account', async () => {
+  it('treats a person of another organisation like anyone else, so accounts elsewhere cannot be probed', async () => {
+    const response = await admin.agent
+      .post('/api/organisation/invitations')
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ name: 'Priya Lund', email: 'priya.lund@pelagic-orbital.example' })
+      .expect(201);
+    expect(response.body.acceptedAt).toBeNull();
+  });
+
+  it('refuses someone who is already in the organisation', async () => {
     const response = await admin.agent
       .post('/api/organisation/invitations')
       .set('x-csrf-token', admin.csrfToken)
@@ -74,7 +93,11 @@ describe('PUT /api/organisation/people/:userId/admin', () => {
   it('keeps the last admin', async () => {
     const people = (await admin.agent.get('/api/organisation').expect(200)).body.people as { id: string; name: string }[];
     const ines = people.find((p) => p.name === 'Ines Marlowe');
-    const response = await admin.agent.put(`/api/organisation/people/${ines?.id}/admin`).set('x-csrf-token', admin.csrfToken).send({ isOrgAdmin: false }).expect(409);
+    const response = await admin.agent
+      .put(`/api/organisation/people/${ines?.id}/admin`)
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ isOrgAdmin: false })
+      .expect(409);
     expect(response.body.error.code).toBe('last_admin');
   });
 });
