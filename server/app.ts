@@ -6,6 +6,7 @@ import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createAuth } from './auth';
 import type { Config } from './env';
+import { HttpError } from './http-error';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requireUser } from './middleware/require-user';
 import { craftsRouter } from './routes/crafts';
@@ -47,9 +48,13 @@ export function createApp(deps: AppDeps): Express {
   // cost no session lookup in PostgreSQL.
   app.use('/api', auth.session);
 
-  // GET /api/health: anyone; 200 when the database answers.
+  // GET /api/health: anyone; 200 when the database answers, 503 database_unavailable when it does not.
   app.get('/api/health', async (_req, res) => {
-    await deps.sequelize.query('SELECT 1');
+    try {
+      await deps.sequelize.query('SELECT 1');
+    } catch {
+      throw new HttpError(503, 'database_unavailable', 'The database does not answer');
+    }
     res.json({ status: 'ok' });
   });
   app.use('/api', auth.csrfProtection);

@@ -14,7 +14,8 @@ async function main() {
     console.log(`[trimsheet] serving ${config.publicUrl}`);
   });
   server.on('error', (error: NodeJS.ErrnoException) => {
-    const reason = error.code === 'EADDRINUSE' ? `port ${config.port} on ${config.host} is already in use (set PORT to another)` : error.message;
+    const reason =
+      error.code === 'EADDRINUSE' ? `port ${config.port} on ${config.host} is already in use (set PORT to another)` : error.message;
     console.error(`[trimsheet] could not listen: ${reason}`);
     process.exit(1);
   });
@@ -23,7 +24,8 @@ async function main() {
       mailer.close();
       void sequelize.close().then(() => process.exit(0));
     });
-    setTimeout(() => process.exit(0), 5000);
+    // Connections still open after 5 s are cut; say so in the exit code.
+    setTimeout(() => process.exit(1), 5000);
   };
   process.on('SIGTERM', shutdown);
   process.on('SIGINT', shutdown);
