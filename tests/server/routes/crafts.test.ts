@@ -27,7 +27,11 @@ describe('GET /api/crafts', () => {
 
 describe('POST /api/crafts', () => {
   it('creates a craft and makes its creator chief engineer', async () => {
-    const response = await admin.agent.post('/api/crafts').set('x-csrf-token', admin.csrfToken).send({ name: '  Petrel  ', description: 'Study craft' }).expect(201);
+    const response = await admin.agent
+      .post('/api/crafts')
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ name: '  Petrel  ', description: 'Study craft' })
+      .expect(201);
     expect(response.body).toEqual(expect.objectContaining({ name: 'Petrel', myRole: 'chief_engineer' }));
     const membership = await Membership.findOne({ where: { craftId: response.body.id } });
     expect(membership?.role).toBe('chief_engineer');
@@ -45,7 +49,12 @@ describe('POST /api/crafts', () => {
   });
 
   it('refuses a body that is not JSON with 400 invalid_json', async () => {
-    const response = await admin.agent.post('/api/crafts').set('x-csrf-token', admin.csrfToken).set('content-type', 'application/json').send('{"name":').expect(400);
+    const response = await admin.agent
+      .post('/api/crafts')
+      .set('x-csrf-token', admin.csrfToken)
+      .set('content-type', 'application/json')
+      .send('{"name":')
+      .expect(400);
     expect(response.body.error.code).toBe('invalid_json');
   });
 
@@ -64,7 +73,11 @@ describe('GET /api/crafts/:craftId', () => {
 
 describe('PATCH /api/crafts/:craftId', () => {
   it('lets the chief engineer rename the craft', async () => {
-    const response = await chief.agent.patch(`/api/crafts/${ternId}`).set('x-csrf-token', chief.csrfToken).send({ name: 'Tern A' }).expect(200);
+    const response = await chief.agent
+      .patch(`/api/crafts/${ternId}`)
+      .set('x-csrf-token', chief.csrfToken)
+      .send({ name: 'Tern A' })
+      .expect(200);
     expect(response.body.name).toBe('Tern A');
     await chief.agent.patch(`/api/crafts/${ternId}`).set('x-csrf-token', chief.csrfToken).send({ name: 'Tern' }).expect(200);
   });
@@ -88,7 +101,11 @@ describe('PUT and DELETE /api/crafts/:craftId/members/:userId', () => {
 
   it('keeps the last chief engineer', async () => {
     const tomas = await User.findOne({ where: { email: 'tomas.reyes@corvid-sailworks.example' }, rejectOnEmpty: true });
-    const demote = await admin.agent.put(`/api/crafts/${ternId}/members/${tomas.id}`).set('x-csrf-token', admin.csrfToken).send({ role: 'viewer' }).expect(409);
+    const demote = await admin.agent
+      .put(`/api/crafts/${ternId}/members/${tomas.id}`)
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ role: 'viewer' })
+      .expect(409);
     expect(demote.body.error.code).toBe('last_chief_engineer');
     const remove = await admin.agent.delete(`/api/crafts/${ternId}/members/${tomas.id}`).set('x-csrf-token', admin.csrfToken).expect(409);
     expect(remove.body.error.code).toBe('last_chief_engineer');

@@ -47,7 +47,12 @@ const routes: RouteCase[] = [
     expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 },
   },
   { method: 'get', path: (ids) => `/api/crafts/${ids.tern}/members`, expected: craftMembersOnly },
-  { method: 'put', path: (ids) => `/api/crafts/${ids.tern}/members/${ids.ines}`, body: () => ({ role: 'viewer' }), expected: adminsOnly(200, 404) },
+  {
+    method: 'put',
+    path: (ids) => `/api/crafts/${ids.tern}/members/${ids.ines}`,
+    body: () => ({ role: 'viewer' }),
+    expected: adminsOnly(200, 404),
+  },
   { method: 'delete', path: (ids) => `/api/crafts/${ids.tern}/members/${ids.ines}`, expected: adminsOnly(204, 404) },
   { method: 'get', path: () => '/api/organisation', expected: signedInOnly },
   {
@@ -56,7 +61,12 @@ const routes: RouteCase[] = [
     body: (actor) => ({ name: `Invitee of ${actor}`, email: `invitee-${actor.toLowerCase()}@corvid-sailworks.example` }),
     expected: adminsOnly(201, 201),
   },
-  { method: 'put', path: (ids) => `/api/organisation/people/${ids.tomas}/admin`, body: () => ({ isOrgAdmin: false }), expected: adminsOnly(200, 404) },
+  {
+    method: 'put',
+    path: (ids) => `/api/organisation/people/${ids.tomas}/admin`,
+    body: () => ({ isOrgAdmin: false }),
+    expected: adminsOnly(200, 404),
+  },
   { method: 'get', path: () => '/api/no-such-route', expected: { default: 404 } },
   // Last: signing out everywhere also ends the sessions the rows above use.
   { method: 'post', path: () => '/api/auth/sign-out', expected: { default: 204 }, endsSession: true },
@@ -106,7 +116,8 @@ describe.each(routes)('$method route', (route) => {
       route: `${route.method.toUpperCase()} ${path}`,
       status: expected,
     });
-    if (response.status >= 400) expect(response.body.error).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
+    if (response.status >= 400)
+      expect(response.body.error).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
     if (actor === 'priya') {
       const text = JSON.stringify(response.body);
       for (const secret of corvidSecrets) expect(text).not.toContain(secret);
