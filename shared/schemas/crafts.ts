@@ -9,6 +9,10 @@ export const craftSchema = z.object({
   description: z.string(),
   /** The caller's role on this craft; null for an organisation admin who is not a member. */
   myRole: craftRoleSchema.nullable(),
+  /** The template the craft started from. */
+  templateId: z.string(),
+  /** The working draft's revision id: the sheet people edit. */
+  draftRevisionId: idSchema.nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });
@@ -22,7 +26,21 @@ export const craftParamsSchema = z.object({ craftId: idSchema });
 const craftName = textLine(120);
 const craftDescription = z.string().trim().max(2000, { message: 'must be at most 2000 characters' });
 
-export const createCraftBodySchema = z.object({ name: craftName, description: craftDescription.default('') });
+/**
+ * A new craft starts from a template (`templateId`, the square sail when neither is given) or as a copy
+ * of another craft's current sheet (`copyOf`, a craft id), never both.
+ */
+export const createCraftBodySchema = z
+  .object({
+    name: craftName,
+    description: craftDescription.default(''),
+    templateId: z.string().min(1).max(60).optional(),
+    copyOf: idSchema.optional(),
+  })
+  .refine((body) => body.templateId === undefined || body.copyOf === undefined, {
+    message: 'give templateId or copyOf, not both',
+    path: ['copyOf'],
+  });
 export type CreateCraftBody = z.infer<typeof createCraftBodySchema>;
 
 export const updateCraftBodySchema = z

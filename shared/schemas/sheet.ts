@@ -15,7 +15,8 @@ export function parameterKeyProblem(key: string): string | undefined {
   return undefined;
 }
 
-const parameterKeySchema = z.string().superRefine((key, ctx) => {
+/** A parameter key: snake_case and never read as a cell reference. */
+export const parameterKeySchema = z.string().superRefine((key, ctx) => {
   const problem = parameterKeyProblem(key);
   if (problem !== undefined) ctx.addIssue({ code: 'custom', message: `key "${key}" ${problem}` });
 });
@@ -34,6 +35,8 @@ export const parameterSchema = z
     mass: z.object({ maturity: z.string().min(1), category: z.string().min(1) }).optional(),
     protected: z.boolean().optional(),
     material: z.object({ id: z.string().min(1), property: z.string().min(1) }).optional(),
+    /** The part the row plays in its template's contract (e.g. "mass_allocation"); screens find rows by it. */
+    role: z.string().min(1).max(60).optional(),
   })
   .strict()
   .superRefine((parameter, ctx) => {
