@@ -140,7 +140,8 @@ export function whyNotOnRow(
   revision: RevisionStanding,
 ): string | undefined {
   if (mayOnRow(action, who, row, revision)) return undefined;
-  if (!rowPermissions[action].states.includes(revision.state)) return `This ${revision.kind} is locked: its rows cannot change`;
+  const rule: RowRule = rowPermissions[action];
+  if (!rule.states.includes(revision.state)) return `This ${revision.kind} is locked: its rows cannot change`;
   if (action === 'editRow' && who.role === 'subsystem_owner') {
     return `You own other subsystems; rows of "${row.subsystemName}" are edited by their owner or an engineer`;
   }
@@ -149,5 +150,6 @@ export function whyNotOnRow(
   }
   if (who.role === 'partner') return 'Partners read the rows shared with them and send changes as a workbook';
   if (who.role === 'viewer') return 'Viewers read the sheet but do not change it';
+  if (who.role === null && who.isOrgAdmin) return 'Organisation admins read the sheet; a role on the craft is needed to change it';
   return 'Your role on this craft does not allow this';
 }

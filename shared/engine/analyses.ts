@@ -1,4 +1,4 @@
-import { bisect, linspace } from '@/shared/sail/numeric';
+import { bisect, linspace, maximise } from '@/shared/sail/numeric';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { compileSheet, type CompiledSheet } from '@/shared/engine/compile';
 import { rowError, type EngineError } from '@/shared/engine/errors';
@@ -180,6 +180,42 @@ export function sweep2(sheet: Sheet, x: SweepAxis, y: SweepAxis, outputKeys: rea
   };
 }
 
+/** One input scanned over a range for one output: the points, both rows, and the output (SI) at an input value (row unit). */
+interface Scan {
+  readonly points: Float64Array;
+  readonly input: Row;
+  readonly output: Row;
+  readonly outputAt: (x: number) => number;
+}
+
+function scanOf(
+  sheet: Sheet,
+  request: {
+    readonly input: string;
+    readonly from: number | string;
+    readonly to: number | string;
+    readonly output: string;
+    readonly samples: number;
+  },
+): AnalysisResult<Scan> {
+  const points = axisPoints(sheet, { key: request.input, from: request.from, to: request.to, steps: request.samples });
+  const prepared = prepare(sheet, [request.input], [request.output]);
+  if (!points.ok || !prepared.ok)
+    return { ok: false, errors: [...(points.ok ? [] : [points.error]), ...(prepared.ok ? [] : prepared.errors)] };
+  const [input] = prepared.result.inputs;
+  const [output] = prepared.result.outputs;
+  if (input === undefined || output === undefined)
+    return { ok: false, errors: [rowError(request.output, 'unknown_key', 'no row has this key')] };
+  const program = prepared.result.compiled.program([input.index], [output.index]);
+  const values = prepared.result.compiled.base.slice();
+  const outputAt = (x: number): number => {
+    values[input.index] = toSI(x, input.unit);
+    program(values);
+    return values[output.index] ?? Number.NaN;
+  };
+  return { ok: true, result: { points: points.values, input, output, outputAt } };
+}
+
 /** Goal seek: find the value of `input` in [from, to] at which `output` equals `target`. */
 export interface GoalSeekRequest {
   readonly input: string;
@@ -208,35 +244,20 @@ export type GoalSeekResult =
  * reported is HyperFormula's. When the range holds no solution, says what the output spans there.
  */
 export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult<GoalSeekResult> {
-  const samples = request.samples ?? 200;
-  const points = axisPoints(sheet, { key: request.input, from: request.from, to: request.to, steps: samples });
-  const prepared = prepare(sheet, [request.input], [request.output]);
+  const scan = scanOf(sheet, { ...request, samples: request.samples ?? 200 });
   const outputParameter = sheet.parameters.find((candidate) => candidate.key === request.output);
   const target = outputParameter === undefined ? undefined : valueInRowUnit(outputParameter, request.target);
-  const errors = [
-    ...(points.ok ? [] : [points.error]),
-    ...(prepared.ok ? [] : prepared.errors),
-    ...(target?.ok === false ? [target.error] : []),
-  ];
-  if (!points.ok || !prepared.ok || target?.ok !== true || errors.length > 0) return { ok: false, errors };
-  const [input] = prepared.result.inputs;
-  const [output] = prepared.result.outputs;
-  if (input === undefined || output === undefined)
-    return { ok: false, errors: [rowError(request.output, 'unknown_key', 'no row has this key')] };
-
-  const program = prepared.result.compiled.program([input.index], [output.index]);
-  const values = prepared.result.compiled.base.slice();
-  const residual = (x: number): number => {
-    values[input.index] = toSI(x, input.unit);
-    program(values);
-    return fromSI(values[output.index] ?? Number.NaN, output.unit) - target.value;
-  };
-  const residuals = Array.from(points.values, residual);
-  const solution = findRoot(points.values, residuals, residual);
+  if (!scan.ok || target?.ok !== true) {
+    return { ok: false, errors: [...(scan.ok ? [] : scan.errors), ...(target?.ok === false ? [target.error] : [])] };
+  }
+  const { points, input, output, outputAt } = scan.result;
+  const residual = (x: number): number => fromSI(outputAt(x), output.unit) - target.value;
+  const residuals = Array.from(points, residual);
+  const solution = findRoot(points, residuals, residual);
   if (solution === undefined) {
     return {
       ok: true,
-      result: { status: 'no_solution', message: noSolutionMessage(request, points.values, residuals, target.value, input, output) },
+      result: { status: 'no_solution', message: noSolutionMessage(request, points, residuals, target.value, input, output) },
     };
   }
   const checked = evaluateSheet(sheet, { [input.key]: solution }).values[output.key];
@@ -282,4 +303,54 @@ function noSolutionMessage(
   const low = Math.min(...reached);
   const high = Math.max(...reached);
   return `no solution: for ${range}, ${output.key} stays between ${low} and ${high} ${output.unitText} and never reaches ${target} ${output.unitText} (asked: ${String(request.target)})`;
+}
+
+/** Find the value of `input` in [from, to] at which `output` is largest. */
+export interface MaximumRequest {
+  readonly input: string;
+  readonly from: number | string;
+  readonly to: number | string;
+  readonly output: string;
+  /** Points scanned before refining around the largest (default 181). */
+  readonly samples?: number;
+}
+
+/** The input value (its row's unit) where the output is largest, and the output there (HyperFormula's value). */
+export type MaximumResult =
+  | { readonly status: 'found'; readonly input: RowValue; readonly output: RowValue }
+  | { readonly status: 'no_value'; readonly message: string };
+
+/**
+ * The largest value of an output row over an input row, on the compiled sheet: the range is scanned
+ * and the largest sample refined by golden-section search between its neighbours, so a curve with
+ * several humps gives its highest one. The output at the answer is checked with HyperFormula.
+ */
+export function findMaximum(sheet: Sheet, request: MaximumRequest): AnalysisResult<MaximumResult> {
+  const scan = scanOf(sheet, { ...request, samples: request.samples ?? 181 });
+  if (!scan.ok) return scan;
+  const { points, input, output } = scan.result;
+  const outputAt = (x: number): number => {
+    const value = scan.result.outputAt(x);
+    return Number.isFinite(value) ? value : Number.NEGATIVE_INFINITY;
+  };
+  const samples = Array.from(points, outputAt);
+  let top = -1;
+  samples.forEach((value, index) => {
+    if (value > Number.NEGATIVE_INFINITY && (top < 0 || value > (samples[top] ?? Number.NEGATIVE_INFINITY))) top = index;
+  });
+  if (top < 0) {
+    const range = `${input.key} from ${points[0]} to ${points[points.length - 1]} ${input.unitText}`;
+    return { ok: true, result: { status: 'no_value', message: `${output.key} has no finite value for ${range}` } };
+  }
+  const low = points[Math.max(0, top - 1)] ?? Number.NaN;
+  const high = points[Math.min(points.length - 1, top + 1)] ?? Number.NaN;
+  const best = maximise(outputAt, Math.min(low, high), Math.max(low, high), 1e-12 * Math.max(1, Math.abs(high - low)));
+  const checked = evaluateSheet(sheet, { [input.key]: best }).values[output.key];
+  if (checked === undefined) {
+    return { ok: false, errors: [rowError(output.key, 'invalid_value', `has no value at ${input.key} = ${best} ${input.unitText}`)] };
+  }
+  return {
+    ok: true,
+    result: { status: 'found', input: { key: input.key, value: best, unit: input.unitText }, output: { key: output.key, ...checked } },
+  };
 }

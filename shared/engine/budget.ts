@@ -1,22 +1,27 @@
 import { rollUpBudget } from '@/shared/budget/rollup';
 import { BudgetInputError, type BudgetRollUp, type BudgetRowInput } from '@/shared/budget/types';
 import type { Parameter, Sheet } from '@/shared/schemas/sheet';
+import { sheetRoles } from '@/shared/templates/roles';
 import type { AnalysisResult } from '@/shared/engine/analyses';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import type { Evaluation } from '@/shared/engine/evaluate';
 import { sheetPreset } from '@/shared/engine/sheet-model';
 import { MASS, formatDimension, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
 
-/** The row that holds the craft's mass allocation, by the template's convention. */
-export const MASS_ALLOCATION_KEY = 'mass_allocation';
-
 /**
  * The mass budget of an evaluated sheet: every row with a maturity and category is a budget line
  * (its value as current best estimate, in kg), rolled up with the sheet's allowance preset
- * against the allocation row, with the sheet's required margin (or the preset's).
+ * against the allocation row (the row whose role is `mass_allocation`), with the sheet's required
+ * margin (or the preset's).
  */
-export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey = MASS_ALLOCATION_KEY): AnalysisResult<BudgetRollUp> {
+export function sheetBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResult<BudgetRollUp> {
   const errors: EngineError[] = [];
+  const allocationKey = sheetRoles(sheet).mass_allocation;
+  if (allocationKey === undefined) {
+    errors.push(
+      rowError('', 'budget_error', 'no row has the role mass_allocation, so the budget has no allocation to hold a margin against'),
+    );
+  }
   // The first row of each key, as a sheet with duplicate keys is read everywhere else.
   const byKey = new Map<string, Parameter>();
   for (const parameter of sheet.parameters) if (!byKey.has(parameter.key)) byKey.set(parameter.key, parameter);
@@ -37,7 +42,7 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey 
     const cbe = inKilograms(parameter.key);
     return cbe === undefined ? [] : [{ key: parameter.key, subsystem: parameter.subsystem, cbe, ...parameter.mass }];
   });
-  const allocation = inKilograms(allocationKey);
+  const allocation = allocationKey === undefined ? undefined : inKilograms(allocationKey);
   const preset = sheetPreset(sheet.budget);
   if (!preset.ok) errors.push(rowError('', 'budget_error', preset.message));
   if (errors.length > 0 || allocation === undefined || !preset.ok) return { ok: false, errors };
@@ -53,7 +58,7 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation, allocationKey 
     };
   } catch (error) {
     if (!(error instanceof BudgetInputError)) throw error;
-    const row = error.rowKey ?? (error.path === 'allocation' ? allocationKey : '');
+    const row = error.rowKey ?? (error.path === 'allocation' ? (allocationKey ?? '') : '');
     return { ok: false, errors: [rowError(row, 'budget_error', error.message)] };
   }
 }

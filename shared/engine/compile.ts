@@ -1,7 +1,7 @@
 import type { Sheet } from '@/shared/schemas/sheet';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import type { FormulaNode } from '@/shared/engine/formula-parser';
-import { applyArithmetic, sheetFunctions } from '@/shared/engine/functions';
+import { ALLOWANCE_FUNCTIONS, applyArithmetic, sheetFunctions } from '@/shared/engine/functions';
 import { analyseSheet, rowStates, type SheetAnalysis } from '@/shared/engine/sheet-model';
 import { applyOverrides, type Evaluation, type Overrides } from '@/shared/engine/evaluate';
 import { fromSI } from '@/shared/engine/units';
@@ -49,11 +49,12 @@ function expression(node: FormulaNode, indexOf: ReadonlyMap<string, number>): st
     }
     case 'call': {
       const fn = FUNCTION_NAMES.indexOf(node.name);
-      const first = node.args[0];
-      const args =
-        node.name === 'PREDICTED' && first?.kind === 'ref'
-          ? [`v[${indexOf.get(first.key) ?? -1}]`, `a[${indexOf.get(first.key) ?? -1}]`]
-          : node.args.map((arg) => expression(arg, indexOf));
+      const args = ALLOWANCE_FUNCTIONS.has(node.name)
+        ? node.args.flatMap((arg) => {
+            const index = arg.kind === 'ref' ? (indexOf.get(arg.key) ?? -1) : -1;
+            return [`v[${index}]`, `a[${index}]`];
+          })
+        : node.args.map((arg) => expression(arg, indexOf));
       const inline = sheetFunctions[node.name]?.inline;
       return inline === undefined ? `f[${fn}](${args.join(',')})` : inline(args);
     }
@@ -101,10 +102,9 @@ function closureOf(node: FormulaNode, indexOf: ReadonlyMap<string, number>, allo
     }
     case 'call': {
       const evaluate = sheetFunctions[node.name]?.evaluate ?? (() => Number.NaN);
-      const first = node.args[0];
-      if (node.name === 'PREDICTED' && first?.kind === 'ref') {
-        const index = indexOf.get(first.key) ?? -1;
-        return (values) => evaluate(values[index] ?? Number.NaN, allowances[index] ?? Number.NaN);
+      if (ALLOWANCE_FUNCTIONS.has(node.name)) {
+        const indices = node.args.map((arg) => (arg.kind === 'ref' ? (indexOf.get(arg.key) ?? -1) : -1));
+        return (values) => evaluate(...indices.flatMap((index) => [values[index] ?? Number.NaN, allowances[index] ?? Number.NaN]));
       }
       const args = node.args.map((arg) => closureOf(arg, indexOf, allowances));
       return (values) => evaluate(...args.map((arg) => arg(values)));

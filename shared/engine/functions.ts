@@ -5,8 +5,11 @@ import type { FormulaNode } from '@/shared/engine/formula-parser';
  * The functions a sheet formula may call. Each knows its dimensional rule (so formulas are
  * checked before they run) and its plain-JS implementation (for the compiled evaluator, which
  * must agree with HyperFormula's built-in function of the same name).
- * PREDICTED is ours: PREDICTED(mass_row) is that row's current best estimate times
- * (1 + its growth allowance from the sheet's allowance preset).
+ * PREDICTED, TOTAL_CBE and TOTAL_PREDICTED are ours: PREDICTED(mass_row) is that row's current best
+ * estimate times (1 + its growth allowance from the sheet's allowance preset); TOTAL_CBE() and
+ * TOTAL_PREDICTED() are written without arguments and the engine's analysis expands them into the
+ * references of every mass row of the sheet (see sheet-model.ts), so they sum the rows the budget
+ * roll-up sums, in the same order.
  */
 export interface SheetFunction {
   readonly minArgs: number;
@@ -20,6 +23,12 @@ export interface SheetFunction {
    */
   readonly inline?: (args: readonly string[]) => string;
 }
+
+/** The functions written without arguments that the analysis expands into every mass row of the sheet. */
+export const MASS_TOTAL_FUNCTIONS: ReadonlySet<string> = new Set(['TOTAL_CBE', 'TOTAL_PREDICTED']);
+
+/** Functions whose arguments are mass rows read with their growth allowance: each reference gives (value, allowance). */
+export const ALLOWANCE_FUNCTIONS: ReadonlySet<string> = new Set(['PREDICTED', 'TOTAL_PREDICTED']);
 
 function mathCall(name: string) {
   return (args: readonly string[]): string => `Math.${name}(${args.join(',')})`;
@@ -59,6 +68,24 @@ function inverseTrigonometric(name: string) {
     const result = check(args);
     return typeof result === 'string' ? result : ANGLE;
   };
+}
+
+/** Every argument must be a mass row: the result is a mass (also with no mass row at all, a total of 0 kg). */
+function massRows(name: string) {
+  return (args: readonly Dimension[], nodes: readonly FormulaNode[]): Dimension | string => {
+    const bad = args.findIndex((dimension) => !sameDimension(dimension, MASS));
+    if (bad < 0) return MASS;
+    const node = nodes[bad];
+    const row = node?.kind === 'ref' ? `the mass row ${node.key}` : `argument ${bad + 1}`;
+    return `${name} sums mass rows, but ${row} is ${formatDimension(args[bad] ?? DIMENSIONLESS)}, not a mass`;
+  };
+}
+
+/** Sum of (value, allowance) pairs as predicted masses, value × (1 + allowance), in order. */
+function sumPredicted(...pairs: number[]): number {
+  let total = 0;
+  for (let index = 0; index + 1 < pairs.length; index += 2) total += (pairs[index] ?? Number.NaN) * (1 + (pairs[index + 1] ?? Number.NaN));
+  return total;
 }
 
 /** The value of a formula made only of numbers, or undefined when it refers to anything else. */
@@ -207,5 +234,24 @@ export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
       sameDimension(args[0] ?? DIMENSIONLESS, MASS) ? MASS : `PREDICTED needs a mass row, got ${formatDimension(args[0] ?? DIMENSIONLESS)}`,
     evaluate: (currentBestEstimate, allowance) => currentBestEstimate * (1 + allowance),
     inline: ([currentBestEstimate, allowance]) => `(${currentBestEstimate ?? 'NaN'}*(1+${allowance ?? 'NaN'}))`,
+  },
+  // Summed from 0 in sheet order, as the budget roll-up sums, so both give the same float.
+  TOTAL_CBE: {
+    minArgs: 0,
+    maxArgs: Number.POSITIVE_INFINITY,
+    dimension: massRows('TOTAL_CBE'),
+    evaluate: (...values) => values.reduce((sum, value) => sum + value, 0),
+    inline: (args) => `(${['0', ...args].join('+')})`,
+  },
+  TOTAL_PREDICTED: {
+    minArgs: 0,
+    maxArgs: Number.POSITIVE_INFINITY,
+    dimension: massRows('TOTAL_PREDICTED'),
+    evaluate: sumPredicted,
+    inline: (args) => {
+      const terms = ['0'];
+      for (let index = 0; index + 1 < args.length; index += 2) terms.push(`${args[index] ?? 'NaN'}*(1+${args[index + 1] ?? 'NaN'})`);
+      return `(${terms.join('+')})`;
+    },
   },
 };

@@ -49,6 +49,15 @@ export function toHyperFormulaText(node: FormulaNode, indexOf: (key: string) => 
         const index = indexOf(first.key);
         return `(${cell('A', index)}*(1+${cell('B', index)}))`;
       }
+      // The mass totals, expanded to every mass row: SUM, not a chain of "+", which HyperFormula evaluates
+      // recursively (thousands of mass rows would overflow the stack). SUM adds in order from 0, as the roll-up does.
+      if (node.name === 'TOTAL_CBE') return `SUM(${['0', ...node.args.map((arg) => toHyperFormulaText(arg, indexOf))].join(',')})`;
+      if (node.name === 'TOTAL_PREDICTED') {
+        const terms = node.args.map((arg) =>
+          arg.kind === 'ref' ? `${cell('A', indexOf(arg.key))}*(1+${cell('B', indexOf(arg.key))})` : 'NA()',
+        );
+        return `SUM(${['0', ...terms].join(',')})`;
+      }
       return `${node.name}(${node.args.map((arg) => toHyperFormulaText(arg, indexOf)).join(',')})`;
     }
   }

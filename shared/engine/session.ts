@@ -2,7 +2,15 @@ import { ExportedCellChange, type HyperFormula, type RawCellContent } from 'hype
 import { parameterKeyProblem, type Parameter, type Sheet } from '@/shared/schemas/sheet';
 import { rowError, type EngineError } from '@/shared/engine/errors';
 import { buildWorkbook, cellContent, readCell } from '@/shared/engine/hyperformula-cells';
-import { analyseSheet, buildGraph, reanalyseRow, rowStates, type AnalysedRow, type SheetAnalysis } from '@/shared/engine/sheet-model';
+import {
+  analyseSheet,
+  buildGraph,
+  mentionsMassTotals,
+  reanalyseRow,
+  rowStates,
+  type AnalysedRow,
+  type SheetAnalysis,
+} from '@/shared/engine/sheet-model';
 import { formatDimension, fromSI, parseQuantity, parseUnit, sameDimension, toSI } from '@/shared/engine/units';
 
 /** A row's result in its declared unit. */
@@ -281,7 +289,17 @@ class Session implements SheetSession {
         touched.add(dependent);
       }
     }
-    const graphChanged = !sameList(old.dependencies, this.rows[index]?.dependencies ?? []);
+    // A row that becomes (or stops being) a mass row changes what TOTAL_CBE() and TOTAL_PREDICTED() read.
+    let totalsChanged = false;
+    if ((old.parameter.mass === undefined) !== (parameter.mass === undefined)) {
+      this.rows.forEach((row, candidate) => {
+        if (candidate === index || !mentionsMassTotals(row.parameter.formula)) return;
+        reanalyseRow(this.analysis, candidate);
+        touched.add(candidate);
+        totalsChanged = true;
+      });
+    }
+    const graphChanged = totalsChanged || !sameList(old.dependencies, this.rows[index]?.dependencies ?? []);
     if (graphChanged) this.analysis.graph = buildGraph(this.rows, this.analysis.indexOf);
     const candidates = graphChanged ? this.rows.map((_, row) => row) : [...touched];
     const changes = this.workbook.batch(() => {

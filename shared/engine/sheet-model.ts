@@ -6,7 +6,7 @@ import type { Parameter, Sheet } from '@/shared/schemas/sheet';
 import { parameterKeyProblem } from '@/shared/schemas/sheet';
 import { rowError, type EngineError, type EngineErrorCode } from '@/shared/engine/errors';
 import { FormulaSyntaxError, parseFormula, referencedKeys, type FormulaNode } from '@/shared/engine/formula-parser';
-import { powerDimension, sheetFunctions } from '@/shared/engine/functions';
+import { MASS_TOTAL_FUNCTIONS, powerDimension, sheetFunctions } from '@/shared/engine/functions';
 import {
   DIMENSIONLESS,
   formatDimension,
@@ -40,6 +40,8 @@ export interface AnalysedRow {
 /** What analysing one row needs to know about the rest of the sheet. */
 export interface RowContext {
   parameterOf(key: string): Parameter | undefined;
+  /** Keys of the sheet's mass rows (rows with a maturity and category), in sheet order: what TOTAL_CBE() sums. */
+  massKeys(): readonly string[];
   readonly budget: Sheet['budget'];
 }
 
@@ -138,6 +140,7 @@ function inferCallDimension(node: Extract<FormulaNode, { kind: 'call' }>, contex
     throw new RowProblem('wrong_argument_count', `${node.name} takes ${expected} argument(s), got ${node.args.length}`);
   }
   if (node.name === 'PREDICTED') checkPredictedArgument(node.args[0], context);
+  if (node.name === 'TOTAL_PREDICTED') node.args.forEach((arg) => checkPredictedArgument(arg, context, 'TOTAL_PREDICTED()'));
   const args = node.args.map((arg) => inferDimension(arg, context));
   if (args.some((arg) => arg === undefined)) return undefined;
   const result = fn.dimension(
@@ -148,14 +151,47 @@ function inferCallDimension(node: Extract<FormulaNode, { kind: 'call' }>, contex
   return result;
 }
 
-function checkPredictedArgument(arg: FormulaNode | undefined, context: RowContext): void {
+function checkPredictedArgument(arg: FormulaNode | undefined, context: RowContext, call?: string): void {
   if (arg?.kind !== 'ref') throw new RowProblem('invalid_argument', 'PREDICTED takes the key of a mass row, e.g. PREDICTED(bus_mass)');
   const target = context.parameterOf(arg.key);
   if (target === undefined) throw new RowProblem('unknown_key', `unknown key "${arg.key}" in the formula`);
   const allowance = rowAllowance(target, context.budget);
   if (!allowance.ok) {
-    throw new RowProblem(target.mass === undefined ? 'invalid_argument' : 'budget_error', `PREDICTED(${arg.key}): ${allowance.message}`);
+    throw new RowProblem(
+      target.mass === undefined ? 'invalid_argument' : 'budget_error',
+      `${call ?? `PREDICTED(${arg.key})`}: ${allowance.message}`,
+    );
   }
+}
+
+/**
+ * Writes TOTAL_CBE() and TOTAL_PREDICTED() out as calls on a reference to every mass row, so the
+ * dependency graph, incremental recompute, HyperFormula and the compiled path all see those rows.
+ * Throws RowProblem when either is given arguments: the sheet's mass rows are the arguments.
+ */
+function expandMassTotals(node: FormulaNode, context: RowContext): FormulaNode {
+  switch (node.kind) {
+    case 'number':
+    case 'ref':
+      return node;
+    case 'unary':
+    case 'percent':
+      return { ...node, operand: expandMassTotals(node.operand, context) };
+    case 'binary':
+      return { ...node, left: expandMassTotals(node.left, context), right: expandMassTotals(node.right, context) };
+    case 'call': {
+      if (!MASS_TOTAL_FUNCTIONS.has(node.name)) return { ...node, args: node.args.map((arg) => expandMassTotals(arg, context)) };
+      if (node.args.length > 0) {
+        throw new RowProblem('wrong_argument_count', `${node.name}() takes no arguments: it sums every mass row of the sheet`);
+      }
+      return { ...node, args: context.massKeys().map((key) => ({ kind: 'ref', key })) };
+    }
+  }
+}
+
+/** Whether a formula's text calls TOTAL_CBE or TOTAL_PREDICTED (also when it has an error), so its references follow the mass rows. */
+export function mentionsMassTotals(formula: string | undefined): boolean {
+  return formula !== undefined && /\bTOTAL_(?:CBE|PREDICTED)\s*\(/i.test(formula);
 }
 
 function inputValue(parameter: Parameter, unit: ParsedUnit): number {
@@ -181,16 +217,19 @@ function inputValue(parameter: Parameter, unit: ParsedUnit): number {
   return toSI(value, unit);
 }
 
-function parseRowFormula(formulaText: string): Parsed<FormulaNode> {
+/** A row's formula parsed and its mass totals expanded, or the problem (a RowProblem when the totals are misused). */
+function parseRowFormula(formulaText: string, context: RowContext): Parsed<FormulaNode> | RowProblem {
   try {
-    return { ok: true, value: parseFormula(formulaText) };
+    return { ok: true, value: expandMassTotals(parseFormula(formulaText), context) };
   } catch (error) {
     if (error instanceof FormulaSyntaxError) return { ok: false, message: `syntax error in "${formulaText}": ${error.message}` };
+    if (error instanceof RowProblem) return error;
     throw error;
   }
 }
 
-function checkFormula(parameter: Parameter, formula: Parsed<FormulaNode>, unit: ParsedUnit, context: RowContext): FormulaNode {
+function checkFormula(parameter: Parameter, formula: Parsed<FormulaNode> | RowProblem, unit: ParsedUnit, context: RowContext): FormulaNode {
+  if (formula instanceof RowProblem) throw formula;
   if (!formula.ok) throw new RowProblem('syntax_error', formula.message);
   const found = inferDimension(formula.value, context);
   if (found !== undefined && !sameDimension(found, unit.dimension)) {
@@ -205,14 +244,14 @@ function checkFormula(parameter: Parameter, formula: Parsed<FormulaNode>, unit: 
 /** Analyses one row against the rest of the sheet. Never throws: problems go into `error`. */
 export function analyseRow(parameter: Parameter, context: RowContext): AnalysedRow {
   const allowance = parameter.mass === undefined ? undefined : rowAllowance(parameter, context.budget);
-  const formula = parameter.formula === undefined ? undefined : parseRowFormula(parameter.formula);
+  const formula = parameter.formula === undefined ? undefined : parseRowFormula(parameter.formula, context);
   const base = {
     parameter,
     unit: undefined,
     formula: undefined,
     siValue: undefined,
     allowance: allowance?.ok === true ? allowance.value : undefined,
-    dependencies: formula?.ok === true ? referencedKeys(formula.value) : [],
+    dependencies: formula !== undefined && !(formula instanceof RowProblem) && formula.ok ? referencedKeys(formula.value) : [],
     error: undefined,
   };
   const keyProblem = parameterKeyProblem(parameter.key);
@@ -343,6 +382,9 @@ export function analyseSheet(sheet: Sheet): SheetAnalysis {
       const index = indexOf.get(key);
       return index === undefined ? undefined : parameters[index];
     },
+    // Read from the live parameter list: a session edits it in place.
+    massKeys: () =>
+      parameters.flatMap((parameter, index) => (parameter.mass !== undefined && !duplicates.has(index) ? [parameter.key] : [])),
   };
   const analysis: SheetAnalysis = { parameters, rows: [], indexOf, graph: buildGraph([], indexOf), context, duplicates };
   parameters.forEach((_, index) => reanalyseRow(analysis, index));

@@ -124,3 +124,95 @@ export function parseQuantity(text: string): Parsed<{ value: number; unit: Parse
   const unit = parseUnit(unitText);
   return unit.ok ? { ok: true, value: { value, unit: unit.value } } : unit;
 }
+
+/**
+ * Common engineering units a unit picker offers, grouped by dimension (mathjs syntax). Units outside
+ * this list still work when typed; the list only sets what is offered.
+ */
+const commonUnits: readonly string[] = [
+  '',
+  'percent',
+  'ppm',
+  'm',
+  'km',
+  'mm',
+  'um',
+  'nm',
+  'AU',
+  'ft',
+  'in',
+  'm^2',
+  'km^2',
+  'cm^2',
+  'mm^2',
+  'ft^2',
+  'm^3',
+  'cm^3',
+  'L',
+  'kg',
+  'g',
+  'mg',
+  'tonne',
+  'lb',
+  's',
+  'min',
+  'h',
+  'day',
+  'm/s',
+  'km/s',
+  'km/h',
+  'm/s^2',
+  'mm/s^2',
+  'um/s^2',
+  'N',
+  'mN',
+  'uN',
+  'kN',
+  'lbf',
+  'Pa',
+  'N/m^2',
+  'uPa',
+  'kPa',
+  'kg/m^3',
+  'g/cm^3',
+  'kg/m^2',
+  'g/m^2',
+  'kg/m',
+  'g/m',
+  'W',
+  'kW',
+  'mW',
+  'W/m^2',
+  'kW/m^2',
+  'J',
+  'kJ',
+  'Wh',
+  'K',
+  'degC',
+  'degF',
+  'rad',
+  'deg',
+  'arcmin',
+  'arcsec',
+  'Hz',
+  'kHz',
+  'm^3/s^2',
+  'km^3/s^2',
+  'W/(m^2 K^4)',
+];
+
+/**
+ * The units of the same dimension as `unit` that a unit picker offers: the row's own unit first, then
+ * the common units of its dimension. Just `[unit]` when the unit is unknown or has no common sibling.
+ */
+export function compatibleUnits(unit: string): string[] {
+  const own = parseUnit(unit);
+  if (!own.ok) return [unit];
+  const ownText = normalizeUnitText(unit);
+  const siblings = commonUnits.filter((candidate) => {
+    if (normalizeUnitText(candidate) === ownText || (ownText === '1' && candidate === '')) return false;
+    const parsed = parseUnit(candidate);
+    return parsed.ok && sameDimension(parsed.value.dimension, own.value.dimension);
+  });
+  return [unit, ...siblings];
+}

@@ -6,6 +6,12 @@ import { requireInRange, requirePositive } from '@/shared/sail/validate';
 export const LOG_SPIRAL_CAVEAT =
   'First-order estimate: the logarithmic spiral (ideal sail, constant cone angle) does not start or end on a circular orbit, so the time ignores the escape and capture phases and any rendezvous. Use it to compare designs, not to plan a mission.';
 
+/**
+ * Cone angle of the largest force across the sun line of an ideal sail, tan α = 1/√2, α ≈ 35.26°
+ * (McInnes 1999, ch. 2 and 4): the cone angle a logarithmic spiral of an ideal sail is usually flown at (rad).
+ */
+export const IDEAL_BEST_TRANSVERSE_CONE_ANGLE = Math.atan(Math.SQRT1_2);
+
 /** Spiral angle at which the lightness number of a spiral is largest: tan γ = √2, for any cone angle (rad). */
 const LARGEST_LIGHTNESS_SPIRAL_ANGLE = Math.atan(Math.SQRT2);
 

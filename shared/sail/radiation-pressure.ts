@@ -1,4 +1,4 @@
-import { ASTRONOMICAL_UNIT, SOLAR_GM, SOLAR_IRRADIANCE_1AU, SPEED_OF_LIGHT } from '@/shared/sail/constants';
+import { ASTRONOMICAL_UNIT, SOLAR_IRRADIANCE_1AU, SPEED_OF_LIGHT } from '@/shared/sail/constants';
 import { requirePositive } from '@/shared/sail/validate';
 
 /**
@@ -11,25 +11,4 @@ export function radiationPressure(distance: number): number {
   requirePositive('radiationPressure', 'distance', distance);
   const ratio = ASTRONOMICAL_UNIT.value / distance;
   return (SOLAR_IRRADIANCE_1AU.value / SPEED_OF_LIGHT.value) * ratio * ratio;
-}
-
-/**
- * Solar irradiance at a heliocentric distance, S(r) = S0 (1 AU / r)^2.
- * @param distance heliocentric distance r (m), > 0
- * @returns irradiance (W/m^2)
- */
-export function solarIrradiance(distance: number): number {
-  requirePositive('solarIrradiance', 'distance', distance);
-  const ratio = ASTRONOMICAL_UNIT.value / distance;
-  return SOLAR_IRRADIANCE_1AU.value * ratio * ratio;
-}
-
-/**
- * Solar gravitational acceleration g(r) = GM_sun / r^2.
- * @param distance heliocentric distance r (m), > 0
- * @returns acceleration (m/s^2); at 1 AU this is g0 ≈ 5.93e-3 m/s^2
- */
-export function solarGravity(distance: number): number {
-  requirePositive('solarGravity', 'distance', distance);
-  return SOLAR_GM.value / (distance * distance);
 }

@@ -67,9 +67,15 @@ export type RevisionAbilities = z.infer<typeof revisionAbilitiesSchema>;
 /** A headline figure computed on the server, for readers who do not see every row (partners). */
 export const headlineFigureSchema = z.object({
   role: z.string(),
+  /** The row playing the role (the role's name when no row does). */
+  key: z.string(),
   label: z.string(),
+  /** In `unit`; null when the row is missing or has an error (then `problem` says why). */
   value: z.number().nullable(),
   unit: z.string(),
+  problem: z.string().optional(),
+  /** A warning on the value, e.g. "below the required margin" on the system margin. */
+  flag: z.string().optional(),
 });
 
 /** GET /api/crafts/:craftId/revisions/:revisionId: the revision and its sheet in the documented format. */

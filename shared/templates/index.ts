@@ -1,6 +1,6 @@
 import { sheetSchema, type Sheet } from '@/shared/schemas/sheet';
 import squareSail from '@/shared/templates/square-sail.json';
-import { type RowRole, type TemplateContract } from '@/shared/templates/roles';
+import { standardHeadline, type RowRole, type SizingInput, type TemplateContract } from '@/shared/templates/roles';
 
 export * from '@/shared/templates/roles';
 
@@ -44,15 +44,7 @@ const squareSailContract: TemplateContract = {
     nonlambertian_back: 'nonlambertian_back',
     sail_efficiency: 'sail_efficiency',
   },
-  headline: [
-    'areal_density',
-    'characteristic_acceleration',
-    'lightness_number',
-    'srp_force',
-    'sail_temperature',
-    'predicted_mass',
-    'system_margin',
-  ],
+  headline: standardHeadline,
   sizingInputs: [
     { role: 'sail_side', min: 5, max: 200 },
     { role: 'film_thickness', min: 1, max: 12.5 },
@@ -73,6 +65,21 @@ export const templates: readonly TemplateDefinition[] = [
 /** The template with this id, or undefined. */
 export function findTemplate(id: string): TemplateDefinition | undefined {
   return templates.find((template) => template.id === id);
+}
+
+/**
+ * The sizing range the templates declare for a role (the first template that sizes it), with the unit
+ * of that template's row, so a sheet whose row is in another unit can convert it; undefined when no
+ * template sizes the role.
+ */
+export function sizingRange(role: RowRole): (SizingInput & { readonly unit: string }) | undefined {
+  for (const template of templates) {
+    const found = template.roles.sizingInputs.find((input) => input.role === role);
+    const key = template.roles.rows[role];
+    const unit = template.sheet.parameters.find((parameter) => parameter.key === key)?.unit;
+    if (found !== undefined && unit !== undefined) return { ...found, unit };
+  }
+  return undefined;
 }
 
 /** A template's sheet with each row's role written on it, ready to become a craft's first draft. */

@@ -45,6 +45,17 @@ export function isRowRole(text: string): text is RowRole {
   return Object.prototype.hasOwnProperty.call(rowRoleDefinitions, text);
 }
 
+/** The figures a sizing review reads first, in order: the headline of the sail templates. */
+export const standardHeadline: readonly RowRole[] = [
+  'areal_density',
+  'characteristic_acceleration',
+  'lightness_number',
+  'srp_force',
+  'sail_temperature',
+  'predicted_mass',
+  'system_margin',
+];
+
 /** An input a person may size (sweep, solve for) and the range offered by default, in the row's own unit. */
 export interface SizingInput {
   readonly role: RowRole;

@@ -1,4 +1,4 @@
-import { goalSeek, sweep, sweep2 } from '@/shared/engine/analyses';
+import { findMaximum, goalSeek, sweep, sweep2 } from '@/shared/engine/analyses';
 import { evaluateSheet } from '@/shared/engine/evaluate';
 import { squareSailTemplate } from '@/shared/templates';
 
@@ -94,5 +94,38 @@ describe('goalSeek', () => {
   it('refuses a target of the wrong dimension', () => {
     const result = goalSeek(sheet, { input: 'sail_side', from: 10, to: 100, output: 'srp_force', target: '3 kg' });
     expect(result).toMatchObject({ ok: false, errors: [{ key: 'srp_force', code: 'dimension_mismatch' }] });
+  });
+});
+
+describe('findMaximum', () => {
+  it('finds the cone angle of the largest force across the sun line of an ideal sail at 35.26 deg', () => {
+    // A perfect specular reflector (r = s = 1) is the ideal sail: McInnes 1999 ch. 2, largest force across the
+    // sun line at tan(alpha) = 1/sqrt(2), alpha = 35.26 deg.
+    const ideal = {
+      ...sheet,
+      parameters: sheet.parameters.map((parameter) =>
+        parameter.key === 'reflectivity' || parameter.key === 'specular_fraction'
+          ? { key: parameter.key, label: parameter.label, subsystem: parameter.subsystem, unit: '', value: 1 }
+          : parameter,
+      ),
+    };
+    const result = findMaximum(ideal, { input: 'cone_angle', from: 0, to: '90 deg', output: 'srp_force_circumferential' });
+    if (!result.ok || result.result.status !== 'found') throw new Error(JSON.stringify(result));
+    expect(result.result.input.unit).toBe('deg');
+    expect(result.result.input.value).toBeCloseTo((Math.atan(Math.SQRT1_2) * 180) / Math.PI, 6);
+    const at = (angle: number) => evaluateSheet(ideal, { cone_angle: angle }).values.srp_force_circumferential?.value ?? Number.NaN;
+    expect(result.result.output.value).toBeCloseTo(at(result.result.input.value), 15);
+    expect(result.result.output.value).toBeGreaterThan(at(result.result.input.value + 0.01));
+    expect(result.result.output.value).toBeGreaterThan(at(result.result.input.value - 0.01));
+  });
+
+  it('says so when the output has no finite value over the range, and names bad rows', () => {
+    const none = findMaximum(sheet, { input: 'sail_side', from: 0, to: 0, output: 'areal_density', samples: 2 });
+    expect(none).toMatchObject({ ok: true, result: { status: 'no_value' } });
+    const bad = findMaximum(sheet, { input: 'sail_area', from: 1, to: 2, output: 'nothing' });
+    expect(bad.ok ? [] : bad.errors.map((error) => [error.key, error.code])).toEqual([
+      ['sail_area', 'invalid_argument'],
+      ['nothing', 'unknown_key'],
+    ]);
   });
 });

@@ -45,7 +45,32 @@ describe('sheetBudget', () => {
     };
     const budget = sheetBudget(broken, evaluateSheet(broken));
     expect(budget).toMatchObject({ ok: false, errors: [{ key: 'bus_mass', code: 'budget_error' }] });
-    const noAllocation = sheetBudget(sheet, evaluateSheet(sheet), 'nothing');
-    expect(noAllocation).toMatchObject({ ok: false, errors: [{ key: 'nothing', code: 'unknown_key' }] });
+  });
+
+  it('finds the allocation by its role, so a renamed allocation row still holds the margin', () => {
+    const renamed = {
+      ...sheet,
+      parameters: sheet.parameters.map((parameter) =>
+        parameter.key === 'mass_allocation' ? { ...parameter, key: 'launch_allocation', value: 30 } : parameter,
+      ),
+    };
+    const budget = sheetBudget(renamed, evaluateSheet(renamed));
+    if (!budget.ok) throw new Error(JSON.stringify(budget.errors));
+    // AIAA S-120A-2015: margin = allocation - predicted mass, against the 30 kg of the renamed row.
+    expect(budget.result.systemMargin.kg).toBeCloseTo(30 - budget.result.total.predicted, 10);
+  });
+
+  it('says so when no row has the mass_allocation role', () => {
+    const noRole = {
+      ...sheet,
+      parameters: sheet.parameters.map((parameter) => {
+        if (parameter.key !== 'mass_allocation') return parameter;
+        const { role: _role, ...rest } = parameter;
+        return rest;
+      }),
+    };
+    const budget = sheetBudget(noRole, evaluateSheet(noRole));
+    expect(budget).toMatchObject({ ok: false, errors: [{ code: 'budget_error' }] });
+    if (!budget.ok) expect(budget.errors[0]?.message).toContain('mass_allocation');
   });
 });

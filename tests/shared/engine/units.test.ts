@@ -1,7 +1,16 @@
 import convert, { type Unit } from 'convert-units';
 import { create, all } from 'mathjs';
 import { HyperFormula } from 'hyperformula';
-import { formatDimension, fromSI, normalizeUnitText, parseQuantity, parseUnit, toSI } from '@/shared/engine/units';
+import {
+  compatibleUnits,
+  formatDimension,
+  fromSI,
+  normalizeUnitText,
+  parseQuantity,
+  parseUnit,
+  sameDimension,
+  toSI,
+} from '@/shared/engine/units';
 import { hyperFormulaConfig } from '@/shared/engine/hyperformula-cells';
 import { parameterKeyProblem } from '@/shared/schemas/sheet';
 
@@ -126,3 +135,36 @@ function dimensionOf(unit: string): readonly number[] {
   if (!parsed.ok) throw new Error(parsed.message);
   return parsed.value.dimension;
 }
+
+describe('compatibleUnits', () => {
+  it('offers the row unit first, then common units of its dimension only', () => {
+    const mass = compatibleUnits('kg');
+    expect(mass[0]).toBe('kg');
+    expect(mass).toEqual(expect.arrayContaining(['g', 'tonne']));
+    expect(mass).not.toContain('m');
+    expect(compatibleUnits('mm/s^2').slice(0, 2)).toEqual(['mm/s^2', 'm/s^2']);
+    expect(compatibleUnits('')).toEqual(['', 'percent', 'ppm']);
+    expect(compatibleUnits('degC')).toEqual(['degC', 'K', 'degF']);
+  });
+
+  it('keeps a unit outside the list first and adds the listed units of its dimension', () => {
+    expect(compatibleUnits('mile')).toEqual(expect.arrayContaining(['mile', 'm', 'km']));
+    expect(compatibleUnits('mile')[0]).toBe('mile');
+  });
+
+  it('offers only the unit itself when it is unknown', () => {
+    expect(compatibleUnits('furlongz')).toEqual(['furlongz']);
+  });
+
+  it('offers units that all parse and share the dimension of the first', () => {
+    for (const unit of ['m', 'kg/m^3', 'g/m^2', 'N', 'W/m^2', 'rad', 'AU', 'um']) {
+      const offered = compatibleUnits(unit);
+      const first = parseUnit(unit);
+      if (!first.ok) throw new Error(first.message);
+      for (const candidate of offered) {
+        const parsed = parseUnit(candidate);
+        expect(parsed.ok && sameDimension(parsed.value.dimension, first.value.dimension)).toBe(true);
+      }
+    }
+  });
+});

@@ -4,8 +4,8 @@ import {
   LOG_SPIRAL_CAVEAT,
   logSpiralTransfer,
   spiralLightnessNumber,
+  IDEAL_BEST_TRANSVERSE_CONE_ANGLE,
 } from '@/shared/sail/log-spiral';
-import { IDEAL_BEST_TRANSVERSE_CONE_ANGLE } from '@/shared/sail/sweeps';
 
 const AU = ASTRONOMICAL_UNIT.value;
 const MU = SOLAR_GM.value;
@@ -27,13 +27,7 @@ function transfer(beta: number, r0 = AU, r1 = 1.524 * AU, coneAngle = alpha) {
  * spiral's own starting velocity and returns the time to reach r1: an independent check of the
  * closed-form time.
  */
-function integratedTime(
-  beta: number,
-  coneAngle: number,
-  spiralAngle: number,
-  r0: number,
-  r1: number,
-): number {
+function integratedTime(beta: number, coneAngle: number, spiralAngle: number, r0: number, r1: number): number {
   const ca = Math.cos(coneAngle);
   const sa = Math.sin(coneAngle);
   // McInnes 1999, ch. 4: on the spiral v^2 r = 2 β μ cos^2 α sin α / (sin γ cos γ)
@@ -72,12 +66,8 @@ describe('spiralLightnessNumber', () => {
   });
 
   it('names an out-of-range angle', () => {
-    expect(() => spiralLightnessNumber(0.1, 0)).toThrow(
-      /spiralLightnessNumber: coneAngle must be in \(0, 1.57/,
-    );
-    expect(() => spiralLightnessNumber(-0.1, 0.5)).toThrow(
-      /spiralLightnessNumber: spiralAngle must be in \[0/,
-    );
+    expect(() => spiralLightnessNumber(0.1, 0)).toThrow(/spiralLightnessNumber: coneAngle must be in \(0, 1.57/);
+    expect(() => spiralLightnessNumber(-0.1, 0.5)).toThrow(/spiralLightnessNumber: spiralAngle must be in \[0/);
   });
 });
 
@@ -102,9 +92,7 @@ describe('logSpiralTransfer', () => {
     // small-γ limit of McInnes 1999, ch. 4: tan γ ≈ γ ≈ 2 β cos^2 α sin α
     const beta = 1e-4;
     const ca = Math.cos(alpha);
-    const limit =
-      (Math.pow(1.524 * AU, 1.5) - Math.pow(AU, 1.5)) /
-      (3 * beta * ca * ca * Math.sin(alpha) * Math.sqrt(MU));
+    const limit = (Math.pow(1.524 * AU, 1.5) - Math.pow(AU, 1.5)) / (3 * beta * ca * ca * Math.sin(alpha) * Math.sqrt(MU));
     expect(transfer(beta).time / limit).toBeCloseTo(1, 3);
   });
 
@@ -139,11 +127,15 @@ describe('logSpiralTransfer', () => {
     expect(() => logSpiralTransfer({ ...input, departureRadius: -AU })).toThrow(
       /logSpiralTransfer: departureRadius must be greater than 0/,
     );
-    expect(() => logSpiralTransfer({ ...input, lightnessNumber: 0 })).toThrow(
-      /logSpiralTransfer: lightnessNumber/,
-    );
-    expect(() => logSpiralTransfer({ ...input, coneAngle: Math.PI / 2 })).toThrow(
-      /logSpiralTransfer: coneAngle must be in \(0/,
-    );
+    expect(() => logSpiralTransfer({ ...input, lightnessNumber: 0 })).toThrow(/logSpiralTransfer: lightnessNumber/);
+    expect(() => logSpiralTransfer({ ...input, coneAngle: Math.PI / 2 })).toThrow(/logSpiralTransfer: coneAngle must be in \(0/);
+  });
+});
+
+describe('IDEAL_BEST_TRANSVERSE_CONE_ANGLE', () => {
+  it('is 35.26 deg, tan(alpha) = 1/sqrt(2)', () => {
+    // McInnes 1999 ch. 2: the ideal sail's force across the sun line is largest at tan(alpha) = 1/sqrt(2), 35.26 deg.
+    expect((IDEAL_BEST_TRANSVERSE_CONE_ANGLE * 180) / Math.PI).toBeCloseTo(35.26, 2);
+    expect(Math.tan(IDEAL_BEST_TRANSVERSE_CONE_ANGLE)).toBeCloseTo(Math.SQRT1_2, 15);
   });
 });

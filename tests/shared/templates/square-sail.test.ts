@@ -51,6 +51,7 @@ describe('square-sail template', () => {
       'nonlambertian_front',
       'nonlambertian_back',
       'mass_allocation',
+      'film_temperature_limit',
     ];
     const outputs = [
       'sail_area',
@@ -66,6 +67,7 @@ describe('square-sail template', () => {
       'srp_force_optical',
       'srp_force_normal',
       'srp_force_transverse',
+      'srp_force_circumferential',
       'sail_temperature',
       'system_margin',
     ];
@@ -147,6 +149,44 @@ describe('square-sail template', () => {
     expect(valueOf('characteristic_acceleration')).toBeCloseTo(ac * 1000, 10);
     expect(valueOf('lightness_number')).toBeCloseTo(ac / (1.3271244e20 / 149_597_870_700 ** 2), 10);
     expect(valueOf('areal_density')).toBeCloseTo((valueOf('predicted_mass') / valueOf('sail_area')) * 1000, 10);
+  });
+
+  // McInnes 1999 ch. 2: with r = s = 1 the optical model is the ideal sail, F = 2 P A cos^2(alpha), all along the normal.
+  it('reduces the optical force to the ideal sail for a perfect specular reflector', () => {
+    for (const cone_angle of [0, 20, 45, 70]) {
+      const perfect = { reflectivity: 1, specular_fraction: 1, sail_efficiency: 1, cone_angle };
+      expect(valueOf('srp_force_normal', perfect)).toBeCloseTo(valueOf('srp_force', perfect), 15);
+      expect(valueOf('srp_force_transverse', perfect)).toBeCloseTo(0, 15);
+    }
+  });
+
+  // McInnes 1999 ch. 2: a_c = 2 eta P / sigma; 9.08e-6 N/m^2 on 10 g/m^2 gives 0.908 mm/s^2.
+  it('gives the characteristic acceleration of a 10 g/m^2 ideal sail', () => {
+    expect(valueOf('characteristic_acceleration', { areal_density: 10, sail_efficiency: 1 })).toBeCloseTo(0.908, 3);
+  });
+
+  // McInnes 1999 ch. 2: beta = 1 at the critical sail loading sigma*.
+  it('gives a lightness number of 1 at the critical sail loading', () => {
+    const critical = valueOf('critical_sail_loading');
+    expect(valueOf('lightness_number', { areal_density: critical, sail_efficiency: 1 })).toBeCloseTo(1, 12);
+  });
+
+  // McInnes 1999 ch. 2: T is proportional to (cos(alpha) / r^2)^(1/4).
+  it('scales the temperature with the cone angle as cos^(1/4)', () => {
+    expect(valueOf('sail_temperature', { cone_angle: 60 })).toBeCloseTo(valueOf('sail_temperature') * Math.pow(0.5, 0.25), 9);
+    expect(valueOf('sail_temperature', { distance: 0.25 })).toBeCloseTo(2 * valueOf('sail_temperature'), 9);
+  });
+
+  // McInnes 1999 ch. 2 (flat-sail geometry): the force across the sun line is F_n sin(alpha) - F_t cos(alpha), 0 facing the sun.
+  it('gives the force across the sun line', () => {
+    expect(valueOf('srp_force_circumferential')).toBeCloseTo(0, 15);
+    const normal = valueOf('srp_force_normal', { cone_angle: 30 });
+    const transverse = valueOf('srp_force_transverse', { cone_angle: 30 });
+    expect(valueOf('srp_force_circumferential', { cone_angle: 30 })).toBeCloseTo(normal * 0.5 - transverse * Math.cos(Math.PI / 6), 15);
+  });
+
+  it('takes the film temperature limit from the materials library (Kapton HN datasheet, from memory: 400 degC)', () => {
+    expect(valueOf('film_temperature_limit')).toBeCloseTo(673.15, 10);
   });
 
   it('sizes the membrane and booms from the geometry', () => {

@@ -1,0 +1,55 @@
+import type { BudgetRollUp } from '@/shared/budget';
+import { sheetBudget, type AnalysisResult, type Evaluation } from '@/shared/engine';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { rowRoleDefinitions, sheetRoles, standardHeadline, type RowRole } from '@/shared/templates/roles';
+
+/** One headline figure: the row playing the role and its value in the row's own unit. */
+export interface HeadlineFigure {
+  readonly role: RowRole;
+  /** The row's key; the role's name when no row plays it. */
+  readonly key: string;
+  readonly label: string;
+  /** In the row's unit; undefined when the row is missing or has an error (see `problem`). */
+  readonly value: number | undefined;
+  readonly unit: string;
+  /** Why there is no value: the engine's error for the row, or the missing role. */
+  readonly problem?: string;
+  /** A warning about the value: "below the required margin" on the system margin. */
+  readonly flag?: string;
+}
+
+/** The flag of a system margin below the one the sheet requires. */
+export const BELOW_REQUIRED_MARGIN = 'below the required margin';
+
+/**
+ * The mass-budget roll-up of an evaluated sheet, the allocation found by its role: the same
+ * computation as the sheet's TOTAL_CBE() and TOTAL_PREDICTED() rows.
+ */
+export function sheetMassBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResult<BudgetRollUp> {
+  return sheetBudget(sheet, evaluation);
+}
+
+/**
+ * The headline figures of an evaluated sheet in the headline's order (by default the sail templates':
+ * areal density, characteristic acceleration, lightness number, force, temperature, predicted mass,
+ * margin). Each reads the row of its role; the margin is flagged from the budget roll-up.
+ */
+export function headlineFigures(sheet: Sheet, evaluation: Evaluation, headline: readonly RowRole[] = standardHeadline): HeadlineFigure[] {
+  const keys = sheetRoles(sheet);
+  const budget = headline.includes('system_margin') ? sheetMassBudget(sheet, evaluation) : undefined;
+  return headline.map((role) => {
+    const label = rowRoleDefinitions[role].label;
+    const key = keys[role];
+    const parameter = key === undefined ? undefined : sheet.parameters.find((candidate) => candidate.key === key);
+    if (key === undefined || parameter === undefined) {
+      return { role, key: role, label, value: undefined, unit: '', problem: `no row of the sheet has the role "${role}"` };
+    }
+    const evaluated = evaluation.values[key];
+    if (evaluated === undefined) {
+      const problem = evaluation.errors.find((error) => error.key === key)?.message ?? `${key}: has no value`;
+      return { role, key, label, value: undefined, unit: parameter.unit, problem };
+    }
+    const flagged = role === 'system_margin' && budget?.ok === true && budget.result.systemMargin.belowRequired;
+    return { role, key, label, value: evaluated.value, unit: evaluated.unit, ...(flagged ? { flag: BELOW_REQUIRED_MARGIN } : {}) };
+  });
+}
