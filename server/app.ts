@@ -5,18 +5,26 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createAuth } from './auth';
+import { bearerAuth, unlessBearer } from './auth/bearer';
 import type { Config } from './env';
 import { HttpError } from './http-error';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requireUser } from './middleware/require-user';
+import { accountRouter } from './routes/account';
 import { craftsRouter } from './routes/crafts';
+import { openApiDocument } from './openapi';
 import { organisationRouter } from './routes/organisation';
+import { sheetsRouter } from './routes/sheets';
+import { templatesRouter } from './routes/templates';
 import type { Mailer } from './services/mailer';
+import type { SheetEvents } from './services/sheet-events';
 
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
   mailer: Mailer;
+  /** This process's listener of sheet changes (PostgreSQL LISTEN), feeding the event streams. */
+  events: SheetEvents;
 }
 
 /** Builds the Express app: API under /api, the exported web app for everything else. Never listens. */
@@ -44,9 +52,10 @@ export function createApp(deps: AppDeps): Express {
   app.use(cookieParser());
 
   const auth = createAuth({ config, sequelize: deps.sequelize });
-  // Only the API reads the session: the web app's files and pages are the same for everyone, so they
-  // cost no session lookup in PostgreSQL.
-  app.use('/api', auth.session);
+  // A script's access token signs in one request; browsers use the session. Only the API reads either:
+  // the web app's files and pages are the same for everyone, so they cost no lookup in PostgreSQL.
+  app.use('/api', bearerAuth);
+  app.use('/api', unlessBearer(auth.session));
 
   // GET /api/health: anyone; 200 when the database answers, 503 database_unavailable when it does not.
   app.get('/api/health', async (_req, res) => {
@@ -57,9 +66,16 @@ export function createApp(deps: AppDeps): Express {
     }
     res.json({ status: 'ok' });
   });
-  app.use('/api', auth.csrfProtection);
+  // GET /api/openapi.json: anyone; the OpenAPI 3.1 description of every route.
+  const openApi = openApiDocument();
+  app.get('/api/openapi.json', (_req, res) => {
+    res.json(openApi);
+  });
+  app.use('/api', unlessBearer(auth.csrfProtection));
   app.use('/api/auth', auth.router);
-  app.use('/api/crafts', requireUser, craftsRouter(deps));
+  app.use('/api/account', requireUser, accountRouter());
+  app.use('/api/templates', requireUser, templatesRouter());
+  app.use('/api/crafts', requireUser, craftsRouter(deps), sheetsRouter(deps));
   app.use('/api/organisation', requireUser, organisationRouter(deps));
   app.use('/api', apiNotFound);
 

@@ -1,7 +1,9 @@
+import http from 'node:http';
 import { createDatabase } from './db';
 import { loadConfig } from './env';
 import { createApp } from './app';
 import { createMailer } from './services/mailer';
+import { createSheetEvents } from './services/sheet-events';
 
 /** Production entry point: connect, listen, and shut down cleanly on SIGTERM or SIGINT. */
 async function main() {
@@ -9,8 +11,16 @@ async function main() {
   const sequelize = createDatabase(config);
   await sequelize.authenticate();
   const mailer = createMailer(config.smtp);
-  const app = createApp({ config, sequelize, mailer });
-  const server = app.listen(config.port, config.host, () => {
+  const events = createSheetEvents(config.databaseUrl);
+  const app = createApp({ config, sequelize, mailer, events });
+  let closing = false;
+  // Once shutting down, a request on a kept-alive connection (an event stream reconnecting) gets 503 and a closed
+  // connection instead of reaching a database pool that is closing.
+  const server = http.createServer((req, res) => {
+    if (!closing) return void app(req, res);
+    res.writeHead(503, { Connection: 'close', 'Retry-After': '5' }).end();
+  });
+  server.listen(config.port, config.host, () => {
     console.log(`[trimsheet] serving ${config.publicUrl}`);
   });
   server.on('error', (error: NodeJS.ErrnoException) => {
@@ -20,9 +30,13 @@ async function main() {
     process.exit(1);
   });
   const shutdown = () => {
+    if (closing) return;
+    closing = true;
+    // Open event streams would hold server.close() until they end: end them first.
+    const eventsClosed = events.close();
     server.close(() => {
       mailer.close();
-      void sequelize.close().then(() => process.exit(0));
+      void Promise.all([eventsClosed, sequelize.close()]).then(() => process.exit(0));
     });
     // Connections still open after 5 s are cut; say so in the exit code.
     setTimeout(() => process.exit(1), 5000);

@@ -1,11 +1,15 @@
 import type { QueryInterface, Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import * as foundation from './migrations/0001-foundation';
+import * as revisions from './migrations/0002-revisions';
 
 export type Migration = MigrationFn<QueryInterface>;
 
 /** Migrations in order; add a new file under migrations/ and list it here. */
-const migrations = [{ name: '0001-foundation', ...foundation }];
+const migrations = [
+  { name: '0001-foundation', ...foundation },
+  { name: '0002-revisions', ...revisions },
+];
 
 /** An umzug migrator over the given connection, recording applied migrations in the SequelizeMeta table. */
 export function createMigrator(sequelize: Sequelize) {

@@ -1,8 +1,9 @@
 import type { RequestHandler } from 'express';
+import { mayInOrganisation, type OrganisationAction } from '@/shared/access/permissions';
 import { HttpError } from '../http-error';
 import type { User } from '../models';
 
-/** 401 unless someone is signed in. */
+/** 401 unless someone is signed in (by session or access token). */
 export const requireUser: RequestHandler = (req, _res, next) => {
   if (!req.user) throw new HttpError(401, 'unauthenticated', 'Sign in first');
   next();
@@ -14,8 +15,10 @@ export function currentUser(req: { user?: Express.User }): User {
   return req.user;
 }
 
-/** 403 unless the signed-in person is an admin of their organisation. */
-export const requireOrgAdmin: RequestHandler = (req, _res, next) => {
-  if (!currentUser(req).isOrgAdmin) throw new HttpError(403, 'forbidden', 'Only an organisation admin may do this');
-  next();
-};
+/** 403 unless the organisation permission table lets the signed-in person take the action. */
+export function requireInOrganisation(action: OrganisationAction): RequestHandler {
+  return (req, _res, next) => {
+    if (!mayInOrganisation(action, currentUser(req))) throw new HttpError(403, 'forbidden', 'Only an organisation admin may do this');
+    next();
+  };
+}

@@ -9,6 +9,7 @@ export class Craft extends TrimsheetModel<Craft> {
   declare createdById: ForeignKey<User['id']> | null;
   declare name: string;
   declare description: CreationOptional<string>;
+  declare templateId: CreationOptional<string>;
   declare memberships?: NonAttribute<Membership[]>;
 
   static initModel(sequelize: Sequelize) {
@@ -17,6 +18,7 @@ export class Craft extends TrimsheetModel<Craft> {
         ...commonColumns,
         name: { type: DataTypes.TEXT, allowNull: false },
         description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        templateId: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'square-sail' },
       },
       { sequelize, tableName: 'crafts' },
     );

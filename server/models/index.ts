@@ -1,16 +1,20 @@
 import type { Sequelize } from 'sequelize';
+import { AccessToken } from './access-token';
 import { Craft } from './craft';
 import { Identity } from './identity';
 import { Invitation } from './invitation';
 import { Membership } from './membership';
 import { Organisation } from './organisation';
+import { Revision } from './revision';
+import { Subsystem } from './subsystem';
 import { User } from './user';
 
-export { Craft, Identity, Invitation, Membership, Organisation, User };
+export { AccessToken, Craft, Identity, Invitation, Membership, Organisation, Revision, Subsystem, User };
 
 /** Registers every model on the connection and sets up all associations, in this one place. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [Organisation, User, Identity, Craft, Membership, Invitation]) model.initModel(sequelize);
+  for (const model of [Organisation, User, Identity, Craft, Membership, Invitation, Subsystem, Revision, AccessToken])
+    model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' });
   User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' });
@@ -25,4 +29,11 @@ export function initModels(sequelize: Sequelize): void {
   Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Organisation.hasMany(Invitation, { foreignKey: 'organisationId', as: 'invitations' });
   Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
+  Craft.hasMany(Subsystem, { foreignKey: 'craftId', as: 'subsystems' });
+  Craft.hasMany(Revision, { foreignKey: 'craftId', as: 'revisions' });
+  Revision.belongsTo(Craft, { foreignKey: 'craftId', as: 'craft' });
+  Revision.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Revision.belongsTo(User, { foreignKey: 'lockedById', as: 'lockedBy' });
+  User.hasMany(AccessToken, { foreignKey: 'userId', as: 'accessTokens' });
+  AccessToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 }

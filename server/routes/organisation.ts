@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { inviteBodySchema, personParamsSchema, setOrgAdminBodySchema } from '@/shared/schemas/organisation';
 import type { AppDeps } from '../app';
-import { currentUser, requireOrgAdmin } from '../middleware/require-user';
+import { currentUser, requireInOrganisation } from '../middleware/require-user';
 import { validate } from '../middleware/validate';
 import { getOrganisation, invitePerson, setOrgAdmin } from '../services/organisation';
 
@@ -15,14 +15,14 @@ export function organisationRouter({ sequelize, mailer, config }: AppDeps): Rout
   });
 
   // POST /api/organisation/invitations: organisation admins; 400, 403, 409 already_a_person, 502 mail_not_sent.
-  router.post('/invitations', requireOrgAdmin, validate({ body: inviteBodySchema }), async (req, res) => {
+  router.post('/invitations', requireInOrganisation('invitePeople'), validate({ body: inviteBodySchema }), async (req, res) => {
     res.status(201).json(await invitePerson(sequelize, mailer, config.publicUrl, currentUser(req), req.body));
   });
 
   // PUT /api/organisation/people/:userId/admin: organisation admins; 400, 403, 404, 409 last_admin.
   router.put(
     '/people/:userId/admin',
-    requireOrgAdmin,
+    requireInOrganisation('setOrgAdmin'),
     validate({ params: personParamsSchema, body: setOrgAdminBodySchema }),
     async (req, res) => {
       res.json(await setOrgAdmin(sequelize, currentUser(req), req.params.userId, req.body.isOrgAdmin));

@@ -14,6 +14,7 @@ export interface DemoPerson {
   isOrgAdmin: boolean;
   /** Role on the organisation's demo craft, if any. */
   craftRole: CraftRole | null;
+  /** Subsystems a subsystem owner owns, or a partner has shared with them, by name. */
   subsystems?: string[];
   /** What the person does, shown on the fake's login page. */
   title: string;
@@ -30,11 +31,92 @@ export const demoCrafts = {
 } as const;
 
 export const demoPeople: DemoPerson[] = [
-  { subject: 'demo-ines', email: 'ines.marlowe@corvid-sailworks.example', name: 'Ines Marlowe', organisation: 'corvid', isOrgAdmin: true, craftRole: null, title: 'Organisation admin' },
-  { subject: 'demo-tomas', email: 'tomas.reyes@corvid-sailworks.example', name: 'Tomás Reyes', organisation: 'corvid', isOrgAdmin: false, craftRole: 'chief_engineer', title: 'Chief engineer' },
-  { subject: 'demo-amara', email: 'amara.osei@corvid-sailworks.example', name: 'Amara Osei', organisation: 'corvid', isOrgAdmin: false, craftRole: 'systems_engineer', title: 'Systems engineer' },
-  { subject: 'demo-kenji', email: 'kenji.hollis@corvid-sailworks.example', name: 'Kenji Hollis', organisation: 'corvid', isOrgAdmin: false, craftRole: 'subsystem_owner', subsystems: ['Booms', 'Deployer'], title: 'Subsystem owner (booms, deployer)' },
-  { subject: 'demo-lucia', email: 'lucia.brandt@corvid-sailworks.example', name: 'Lucia Brandt', organisation: 'corvid', isOrgAdmin: false, craftRole: 'partner', title: 'Partner (film supplier)' },
-  { subject: 'demo-oren', email: 'oren.vasquez@corvid-sailworks.example', name: 'Oren Vasquez', organisation: 'corvid', isOrgAdmin: false, craftRole: 'viewer', title: 'Viewer' },
-  { subject: 'demo-priya', email: 'priya.lund@pelagic-orbital.example', name: 'Priya Lund', organisation: 'pelagic', isOrgAdmin: true, craftRole: 'chief_engineer', title: 'Another organisation (admin and chief engineer)' },
+  {
+    subject: 'demo-ines',
+    email: 'ines.marlowe@corvid-sailworks.example',
+    name: 'Ines Marlowe',
+    organisation: 'corvid',
+    isOrgAdmin: true,
+    craftRole: null,
+    title: 'Organisation admin',
+  },
+  {
+    subject: 'demo-tomas',
+    email: 'tomas.reyes@corvid-sailworks.example',
+    name: 'Tomás Reyes',
+    organisation: 'corvid',
+    isOrgAdmin: false,
+    craftRole: 'chief_engineer',
+    title: 'Chief engineer',
+  },
+  {
+    subject: 'demo-amara',
+    email: 'amara.osei@corvid-sailworks.example',
+    name: 'Amara Osei',
+    organisation: 'corvid',
+    isOrgAdmin: false,
+    craftRole: 'systems_engineer',
+    title: 'Systems engineer',
+  },
+  {
+    subject: 'demo-kenji',
+    email: 'kenji.hollis@corvid-sailworks.example',
+    name: 'Kenji Hollis',
+    organisation: 'corvid',
+    isOrgAdmin: false,
+    craftRole: 'subsystem_owner',
+    subsystems: ['Booms', 'Deployer'],
+    title: 'Subsystem owner (booms, deployer)',
+  },
+  {
+    subject: 'demo-lucia',
+    email: 'lucia.brandt@corvid-sailworks.example',
+    name: 'Lucia Brandt',
+    organisation: 'corvid',
+    isOrgAdmin: false,
+    craftRole: 'partner',
+    subsystems: ['Sail membrane'],
+    title: 'Partner (film supplier)',
+  },
+  {
+    subject: 'demo-oren',
+    email: 'oren.vasquez@corvid-sailworks.example',
+    name: 'Oren Vasquez',
+    organisation: 'corvid',
+    isOrgAdmin: false,
+    craftRole: 'viewer',
+    title: 'Viewer',
+  },
+  {
+    subject: 'demo-priya',
+    email: 'priya.lund@pelagic-orbital.example',
+    name: 'Priya Lund',
+    organisation: 'pelagic',
+    isOrgAdmin: true,
+    craftRole: 'chief_engineer',
+    title: 'Another organisation (admin and chief engineer)',
+  },
+];
+
+/** A change a demo person made to Tern's working draft, in order: the seeded history of the sheet. */
+export interface DemoEdit {
+  subject: string;
+  key: string;
+  change: { value?: string; subsystem?: string; note?: string };
+}
+
+/**
+ * Tern's story so far (invented): the systems engineer gives the deployer its own subsystem, the boom owner
+ * puts in the lighter boom from the supplier's sample, the sail grows to win back acceleration, and the
+ * chief engineer raises the mass allocation after the launch-slot change.
+ */
+export const ternEdits: DemoEdit[] = [
+  { subject: 'demo-amara', key: 'deployer_mass', change: { subsystem: 'Deployer' } },
+  {
+    subject: 'demo-kenji',
+    key: 'boom_linear_density',
+    change: { value: '15 g/m', note: 'Sample boom from the supplier, weighed on receipt.' },
+  },
+  { subject: 'demo-amara', key: 'sail_side', change: { value: '45 m' } },
+  { subject: 'demo-tomas', key: 'mass_allocation', change: { value: '38 kg', note: 'Raised after the move to the larger launch slot.' } },
 ];

@@ -1,31 +1,83 @@
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { findTemplate, instantiateTemplate } from '@/shared/templates';
 import { Craft, Membership, Organisation, User } from '../models';
-import { demoCrafts, demoOrganisations, demoPeople } from './demo-scenario';
+import { updateParameter } from '../services/parameters';
+import { createDraft, draftIdOf, ensureSubsystems } from '../services/sheet-store';
+import { selectRows } from '../models/sheet-rows';
+import { demoCrafts, demoOrganisations, demoPeople, ternEdits } from './demo-scenario';
 
-/** Seeds the invented demo scenario. Idempotent: existing rows are found by their natural keys and kept. */
+/**
+ * Seeds the invented demo scenario. Idempotent: existing rows are found by their natural keys and kept; a
+ * craft without a working draft gets one from the square-sail template, and Tern's history of edits is
+ * replayed (through the same service as the API) only while its draft has none.
+ */
 export async function seedDemo(sequelize: Sequelize): Promise<void> {
+  const template = findTemplate('square-sail');
+  if (!template) throw new Error('the square-sail template is missing');
+  const craftIds = { corvid: '', pelagic: '' };
   await sequelize.transaction(async (transaction) => {
     for (const key of ['corvid', 'pelagic'] as const) {
-      const [organisation] = await Organisation.findOrCreate({ where: { slug: demoOrganisations[key].slug }, defaults: demoOrganisations[key], transaction });
-      const [craft] = await Craft.findOrCreate({
-        where: { organisationId: organisation.id, name: demoCrafts[key].name },
-        defaults: { ...demoCrafts[key], organisationId: organisation.id, createdById: null },
+      const [organisation] = await Organisation.findOrCreate({
+        where: { slug: demoOrganisations[key].slug },
+        defaults: demoOrganisations[key],
         transaction,
       });
-      for (const person of demoPeople.filter((p) => p.organisation === key)) {
+      const [craft] = await Craft.findOrCreate({
+        where: { organisationId: organisation.id, name: demoCrafts[key].name },
+        defaults: { ...demoCrafts[key], organisationId: organisation.id, createdById: null, templateId: template.id },
+        transaction,
+      });
+      craftIds[key] = craft.id;
+      // People first, then the draft (its subsystems in the sheet's order), then memberships naming subsystems.
+      const people = demoPeople.filter((p) => p.organisation === key);
+      const users = new Map<string, User>();
+      for (const person of people) {
         const [user] = await User.findOrCreate({
           where: { email: person.email },
           defaults: { email: person.email, name: person.name, isOrgAdmin: person.isOrgAdmin, organisationId: organisation.id },
           transaction,
         });
-        if (person.craftRole) {
-          await Membership.findOrCreate({
-            where: { craftId: craft.id, userId: user.id },
-            defaults: { craftId: craft.id, userId: user.id, role: person.craftRole, subsystems: person.subsystems ?? [] },
-            transaction,
-          });
+        users.set(person.subject, user);
+      }
+      if ((await draftIdOf(sequelize, craft.id, transaction)) === null) {
+        const chief = people.find((person) => person.craftRole === 'chief_engineer');
+        const chiefId = chief ? (users.get(chief.subject)?.id ?? null) : null;
+        await createDraft(sequelize, craft.id, instantiateTemplate(template), chiefId, transaction);
+      }
+      for (const person of people) {
+        const user = users.get(person.subject);
+        if (!person.craftRole || !user) continue;
+        const idByName = await ensureSubsystems(sequelize, craft.id, person.subsystems ?? [], transaction);
+        const subsystemIds = (person.subsystems ?? []).flatMap((name) => idByName.get(name) ?? []);
+        const [membership, created] = await Membership.findOrCreate({
+          where: { craftId: craft.id, userId: user.id },
+          defaults: { craftId: craft.id, userId: user.id, role: person.craftRole, subsystemIds },
+          transaction,
+        });
+        // A database seeded before subsystems were shared with partners gets the demo's sharing once.
+        if (!created && membership.subsystemIds.length === 0 && subsystemIds.length > 0) {
+          await membership.update({ subsystemIds }, { transaction });
         }
       }
     }
   });
+  await replayTernHistory(sequelize, craftIds.corvid);
+}
+
+/** Applies Tern's demo edits as their people, through the API's own service, while the draft has no history. */
+async function replayTernHistory(sequelize: Sequelize, craftId: string) {
+  const draftId = await draftIdOf(sequelize, craftId);
+  if (draftId === null) return;
+  const [recorded] = await sequelize.query<{ count: string }>('SELECT count(*) AS count FROM parameter_changes WHERE revision_id = $1', {
+    bind: [draftId],
+    type: QueryTypes.SELECT,
+  });
+  if (recorded?.count !== '0') return;
+  for (const edit of ternEdits) {
+    const email = demoPeople.find((person) => person.subject === edit.subject)?.email ?? '';
+    const user = await User.findOne({ where: { email }, rejectOnEmpty: true });
+    const row = (await selectRows(sequelize, draftId)).find((candidate) => candidate.key === edit.key);
+    if (!row) throw new Error(`the demo edit names no row "${edit.key}"`);
+    await updateParameter(sequelize, user, craftId, draftId, edit.key, { version: row.version, ...edit.change });
+  }
 }

@@ -1,24 +1,31 @@
 import type { Sequelize } from 'sequelize';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
+import { mayOnCraft } from '@/shared/access/permissions';
 import type { Craft as CraftDto, CreateCraftBody, UpdateCraftBody } from '@/shared/schemas/crafts';
 import type { CraftRole } from '@/shared/schemas/roles';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { findTemplate, instantiateTemplate } from '@/shared/templates';
+import { HttpError, notFound } from '../http-error';
 import { Craft, Membership, type User } from '../models';
-import { authorizeCraft } from './craft-access';
+import { authorizeCraft, loadCraftAccess } from './craft-access';
+import { createDraft, draftIdOf, draftSheet } from './sheet-store';
 
-function toCraftDto(craft: Craft, myRole: CraftRole | null): CraftDto {
+function toCraftDto(craft: Craft, myRole: CraftRole | null, draftRevisionId: string | null): CraftDto {
   return {
     id: craft.id,
     organisationId: craft.organisationId,
     name: craft.name,
     description: craft.description,
     myRole,
+    templateId: craft.templateId,
+    draftRevisionId,
     createdAt: craft.createdAt.toISOString(),
     updatedAt: craft.updatedAt.toISOString(),
   };
 }
 
 /** Crafts the person is a member of; an organisation admin sees every craft of the organisation. */
-export async function listCrafts(user: User): Promise<CraftDto[]> {
+export async function listCrafts(sequelize: Sequelize, user: User): Promise<CraftDto[]> {
   const memberships = await Membership.findAll({ where: { userId: user.id } });
   const roleByCraft = new Map(memberships.map((m) => [m.craftId, m.role]));
   const crafts = await Craft.findAll({
@@ -28,27 +35,57 @@ export async function listCrafts(user: User): Promise<CraftDto[]> {
     },
     order: [['name', 'ASC']],
   });
-  return crafts.map((craft) => toCraftDto(craft, roleByCraft.get(craft.id) ?? null));
+  const drafts = await sequelize.query<{ id: string; craftId: string }>(
+    `SELECT id, craft_id AS "craftId" FROM revisions WHERE kind = 'draft' AND craft_id = ANY ($1::uuid[])`,
+    { bind: [crafts.map((craft) => craft.id)], type: QueryTypes.SELECT },
+  );
+  const draftByCraft = new Map(drafts.map((draft) => [draft.craftId, draft.id]));
+  return crafts.map((craft) => toCraftDto(craft, roleByCraft.get(craft.id) ?? null, draftByCraft.get(craft.id) ?? null));
 }
 
-/** Creates a craft in the admin's organisation; the creator becomes its chief engineer. */
+/**
+ * The sheet a new craft starts from: a copy of another craft's working draft (one the person may copy, of
+ * their organisation: 404 otherwise, so its existence does not leak) or a template's (400 for an unknown id).
+ */
+async function startingSheet(sequelize: Sequelize, user: User, body: CreateCraftBody): Promise<{ sheet: Sheet; templateId: string }> {
+  if (body.copyOf !== undefined) {
+    const source = await loadCraftAccess(user, body.copyOf);
+    if (!mayOnCraft('copyCraft', source)) throw notFound('Craft');
+    return { sheet: await draftSheet(sequelize, source.craft.id), templateId: source.craft.templateId };
+  }
+  const templateId = body.templateId ?? 'square-sail';
+  const template = findTemplate(templateId);
+  if (!template) {
+    throw new HttpError(400, 'invalid_input', `No template "${templateId}"`, [
+      { path: 'body.templateId', message: `no template "${templateId}"` },
+    ]);
+  }
+  return { sheet: instantiateTemplate(template), templateId };
+}
+
+/** Creates a craft in the person's organisation with its working draft; the creator becomes its chief engineer. */
 export async function createCraft(sequelize: Sequelize, user: User, body: CreateCraftBody): Promise<CraftDto> {
+  const { sheet, templateId } = await startingSheet(sequelize, user, body);
   return sequelize.transaction(async (transaction) => {
-    const craft = await Craft.create({ ...body, organisationId: user.organisationId, createdById: user.id }, { transaction });
+    const craft = await Craft.create(
+      { name: body.name, description: body.description, templateId, organisationId: user.organisationId, createdById: user.id },
+      { transaction },
+    );
     await Membership.create({ craftId: craft.id, userId: user.id, role: 'chief_engineer' }, { transaction });
-    return toCraftDto(craft, 'chief_engineer');
+    const draftId = await createDraft(sequelize, craft.id, sheet, user.id, transaction);
+    return toCraftDto(craft, 'chief_engineer', draftId);
   });
 }
 
 /** The craft as the person sees it. */
-export async function getCraft(user: User, craftId: string): Promise<CraftDto> {
+export async function getCraft(sequelize: Sequelize, user: User, craftId: string): Promise<CraftDto> {
   const access = await authorizeCraft(user, craftId, 'viewCraft');
-  return toCraftDto(access.craft, access.role);
+  return toCraftDto(access.craft, access.role, await draftIdOf(sequelize, craftId));
 }
 
 /** Renames or re-describes a craft. */
-export async function updateCraft(user: User, craftId: string, body: UpdateCraftBody): Promise<CraftDto> {
+export async function updateCraft(sequelize: Sequelize, user: User, craftId: string, body: UpdateCraftBody): Promise<CraftDto> {
   const access = await authorizeCraft(user, craftId, 'editCraftDetails');
   await access.craft.update(body);
-  return toCraftDto(access.craft, access.role);
+  return toCraftDto(access.craft, access.role, await draftIdOf(sequelize, craftId));
 }

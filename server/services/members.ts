@@ -3,18 +3,37 @@ import type { Member, SetMemberBody } from '@/shared/schemas/members';
 import { HttpError, notFound } from '../http-error';
 import { Craft, Membership, User } from '../models';
 import { authorizeCraft } from './craft-access';
+import { selectSubsystems, type SubsystemRecord } from './sheet-store';
 
-function toMemberDto(membership: Membership, user: User): Member {
-  return { userId: user.id, name: user.name, email: user.email, role: membership.role, subsystems: membership.subsystems };
+/** Roles whose membership names subsystems: the ones an owner edits, or the ones shared with a partner. */
+const rolesWithSubsystems: ReadonlySet<SetMemberBody['role']> = new Set(['subsystem_owner', 'partner']);
+
+function toMemberDto(membership: Membership, user: User, subsystems: readonly SubsystemRecord[]): Member {
+  // Memberships hold subsystem ids; the API speaks names, as the member editor does.
+  const names = subsystems.filter((subsystem) => membership.subsystemIds.includes(subsystem.id)).map((subsystem) => subsystem.name);
+  return { userId: user.id, name: user.name, email: user.email, role: membership.role, subsystems: names };
 }
 
 /** The craft's members with their roles, by name. */
-export async function listMembers(user: User, craftId: string): Promise<Member[]> {
+export async function listMembers(sequelize: Sequelize, user: User, craftId: string): Promise<Member[]> {
   await authorizeCraft(user, craftId, 'viewMembers');
   const memberships = await Membership.findAll({ where: { craftId }, include: [{ model: User, as: 'user' }] });
+  const subsystems = await selectSubsystems(sequelize, craftId);
   return memberships
-    .flatMap((membership) => (membership.user ? [toMemberDto(membership, membership.user)] : []))
+    .flatMap((membership) => (membership.user ? [toMemberDto(membership, membership.user, subsystems)] : []))
     .sort((a, b) => a.name.localeCompare(b.name));
+}
+
+/** The ids of the named subsystems of the craft; 400 naming each name the craft does not have. */
+function subsystemIdsOf(names: readonly string[], subsystems: readonly SubsystemRecord[]): string[] {
+  const problems = names.flatMap((name, index) =>
+    subsystems.some((subsystem) => subsystem.name === name)
+      ? []
+      : [{ path: `body.subsystems.${index}`, message: `the craft has no subsystem "${name}"` }],
+  );
+  if (problems.length > 0)
+    throw new HttpError(400, 'invalid_input', `Invalid input: ${problems.map((p) => `${p.path} ${p.message}`).join('; ')}`, problems);
+  return subsystems.filter((subsystem) => names.includes(subsystem.name)).map((subsystem) => subsystem.id);
 }
 
 /**
@@ -28,19 +47,23 @@ function changeMemberships<T>(sequelize: Sequelize, craftId: string, change: (tr
   });
 }
 
-/** Adds a person of the same organisation to the craft, or changes their role. */
+/**
+ * Adds a person of the same organisation to the craft, or changes their role. Subsystem owners and
+ * partners name subsystems the craft has (owned, or shared with the partner).
+ */
 export async function setMember(sequelize: Sequelize, user: User, craftId: string, memberId: string, body: SetMemberBody): Promise<Member> {
   const { craft } = await authorizeCraft(user, craftId, 'manageMembers');
   const person = await User.findOne({ where: { id: memberId, organisationId: craft.organisationId } });
   if (!person) throw notFound('Person');
-  const subsystems = body.role === 'subsystem_owner' ? body.subsystems : [];
+  const subsystems = await selectSubsystems(sequelize, craftId);
+  const subsystemIds = rolesWithSubsystems.has(body.role) ? subsystemIdsOf(body.subsystems, subsystems) : [];
   const membership = await changeMemberships(sequelize, craftId, async (transaction) => {
     const existing = await Membership.findOne({ where: { craftId, userId: person.id }, transaction });
-    if (!existing) return Membership.create({ craftId, userId: person.id, role: body.role, subsystems }, { transaction });
+    if (!existing) return Membership.create({ craftId, userId: person.id, role: body.role, subsystemIds }, { transaction });
     if (body.role !== 'chief_engineer') await keepOneChiefEngineer(existing, transaction);
-    return existing.update({ role: body.role, subsystems }, { transaction });
+    return existing.update({ role: body.role, subsystemIds }, { transaction });
   });
-  return toMemberDto(membership, person);
+  return toMemberDto(membership, person, subsystems);
 }
 
 /** Takes a person off the craft. */

@@ -27,7 +27,7 @@ function appWith(change: (config: Config) => Config): Express {
   const config = change(testApp.config);
   const mailer = createMailer(config.smtp);
   mailers.push(mailer);
-  return createApp({ config, sequelize: testApp.sequelize, mailer });
+  return createApp({ config, sequelize: testApp.sequelize, mailer, events: testApp.events });
 }
 
 const landing = async (agent: Agent, path: string) => locationOf(await agent.get(path).expect(302));

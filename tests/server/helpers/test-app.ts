@@ -7,6 +7,7 @@ import { createApp } from '@/server/app';
 import { createDatabase } from '@/server/db';
 import { loadConfig, type Config } from '@/server/env';
 import { createMailer } from '@/server/services/mailer';
+import { createSheetEvents, type SheetEvents } from '@/server/services/sheet-events';
 
 /** What `npm test` (server/dev/stack.ts) tells the tests about the stack it started. */
 export const testStack = z
@@ -33,6 +34,7 @@ export interface TestApp {
   app: Express;
   sequelize: Sequelize;
   config: Config;
+  events: SheetEvents;
   close(): Promise<void>;
 }
 
@@ -45,13 +47,16 @@ export async function createTestApp(): Promise<TestApp> {
   const config: Config = { ...loadConfig(process.env), databaseUrl: databaseUrl.toString() };
   const sequelize = createDatabase(config);
   const mailer = createMailer(config.smtp);
-  const app = createApp({ config, sequelize, mailer });
+  const events = createSheetEvents(config.databaseUrl);
+  const app = createApp({ config, sequelize, mailer, events });
   return {
     app,
     sequelize,
     config,
+    events,
     close: async () => {
       mailer.close();
+      await events.close();
       await sequelize.close();
       await adminQuery(`DROP DATABASE "${name}" WITH (FORCE)`);
     },

@@ -116,8 +116,34 @@ describe('PUT and DELETE /api/crafts/:craftId/members/:userId', () => {
     const response = await admin.agent
       .put(`/api/crafts/${ternId}/members/${oren.id}`)
       .set('x-csrf-token', admin.csrfToken)
-      .send({ role: 'subsystem_owner', subsystems: ['Bus'] })
+      .send({ role: 'subsystem_owner', subsystems: ['Spacecraft'] })
       .expect(200);
-    expect(response.body).toEqual(expect.objectContaining({ role: 'subsystem_owner', subsystems: ['Bus'] }));
+    expect(response.body).toEqual(expect.objectContaining({ role: 'subsystem_owner', subsystems: ['Spacecraft'] }));
+  });
+
+  it('refuses a subsystem the craft does not have, naming it', async () => {
+    const oren = await User.findOne({ where: { email: 'oren.vasquez@corvid-sailworks.example' }, rejectOnEmpty: true });
+    const response = await admin.agent
+      .put(`/api/crafts/${ternId}/members/${oren.id}`)
+      .set('x-csrf-token', admin.csrfToken)
+      .send({ role: 'subsystem_owner', subsystems: ['Spacecraft', 'Bus'] })
+      .expect(400);
+    expect(response.body.error.details).toEqual([{ path: 'body.subsystems.1', message: 'the craft has no subsystem "Bus"' }]);
+  });
+
+  it('keeps an owner on a renamed subsystem', async () => {
+    const kenji = await User.findOne({ where: { email: 'kenji.hollis@corvid-sailworks.example' }, rejectOnEmpty: true });
+    const amara = await signIn(testApp.app, 'demo-amara', 'sso');
+    const tern = await admin.agent.get(`/api/crafts/${ternId}`).expect(200);
+    const detail = await admin.agent.get(`/api/crafts/${ternId}/revisions/${tern.body.draftRevisionId}`).expect(200);
+    const booms = detail.body.subsystems.find((subsystem: { name: string }) => subsystem.name === 'Booms');
+    await amara.agent
+      .patch(`/api/crafts/${ternId}/subsystems/${booms.id}`)
+      .set('x-csrf-token', amara.csrfToken)
+      .send({ name: 'Boom assembly' })
+      .expect(200);
+    const members = await admin.agent.get(`/api/crafts/${ternId}/members`).expect(200);
+    const owner = members.body.members.find((member: { userId: string }) => member.userId === kenji.id);
+    expect(owner.subsystems).toEqual(['Boom assembly', 'Deployer']);
   });
 });

@@ -1,0 +1,29 @@
+import { Router } from 'express';
+import { createTokenBodySchema, tokenParamsSchema } from '@/shared/schemas/tokens';
+import { currentUser } from '../middleware/require-user';
+import { validate } from '../middleware/validate';
+import { createToken, listTokens, revokeToken } from '../services/access-tokens';
+
+/** Routes under /api/account: the signed-in person's own settings (mounted behind requireUser; never by token). */
+export function accountRouter(): Router {
+  const router = Router();
+
+  // GET /api/account/tokens: any signed-in person (session only); { tokens }; 401, 403 token_not_allowed.
+  router.get('/tokens', async (req, res) => {
+    res.json({ tokens: await listTokens(currentUser(req)) });
+  });
+
+  // POST /api/account/tokens: any signed-in person (session only); 201 { token, secret } (the secret shown
+  // this once); 400, 401, 403.
+  router.post('/tokens', validate({ body: createTokenBodySchema }), async (req, res) => {
+    res.status(201).json(await createToken(currentUser(req), req.body));
+  });
+
+  // DELETE /api/account/tokens/:tokenId: the token's owner (session only); 204; 401, 403, 404.
+  router.delete('/tokens/:tokenId', validate({ params: tokenParamsSchema }), async (req, res) => {
+    await revokeToken(currentUser(req), req.params.tokenId);
+    res.status(204).end();
+  });
+
+  return router;
+}

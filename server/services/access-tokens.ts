@@ -1,0 +1,116 @@
+import crypto from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import type { AccessToken as AccessTokenDto, CreateTokenBody, TokenScope } from '@/shared/schemas/tokens';
+import { notFound } from '../http-error';
+import { AccessToken, Organisation, User } from '../models';
+
+const SECRET_PREFIX = 'tsk_';
+const PREFIX_LENGTH = SECRET_PREFIX.length + 6;
+/** last_used_at is written at most this often, so a busy script costs no write per request. */
+const LAST_USED_RESOLUTION_MS = 60_000;
+
+/** SHA-256 of a token secret, hex: what the database keeps. */
+export function hashSecret(secret: string): string {
+  return crypto.createHash('sha256').update(secret).digest('hex');
+}
+
+function toTokenDto(token: AccessToken): AccessTokenDto {
+  return {
+    id: token.id,
+    name: token.name,
+    scope: token.scope,
+    prefix: token.prefix,
+    createdAt: token.createdAt.toISOString(),
+    lastUsedAt: token.lastUsedAt ? token.lastUsedAt.toISOString() : null,
+    revokedAt: token.revokedAt ? token.revokedAt.toISOString() : null,
+  };
+}
+
+/** The person's tokens, newest first, revoked ones included (marked). */
+export async function listTokens(user: User): Promise<AccessTokenDto[]> {
+  const tokens = await AccessToken.findAll({ where: { userId: user.id }, order: [['createdAt', 'DESC']] });
+  return tokens.map(toTokenDto);
+}
+
+/** Creates a token; the secret is returned this once and only its hash is stored. */
+export async function createToken(user: User, body: CreateTokenBody): Promise<{ token: AccessTokenDto; secret: string }> {
+  const secret = `${SECRET_PREFIX}${crypto.randomBytes(32).toString('base64url')}`;
+  const token = await AccessToken.create({
+    userId: user.id,
+    name: body.name,
+    scope: body.scope,
+    tokenHash: hashSecret(secret),
+    prefix: secret.slice(0, PREFIX_LENGTH),
+  });
+  return { token: toTokenDto(token), secret };
+}
+
+/** Revokes one of the person's tokens (404 for anyone else's); revoking twice is harmless. */
+export async function revokeToken(user: User, tokenId: string): Promise<void> {
+  const token = await AccessToken.findOne({ where: { id: tokenId, userId: user.id } });
+  if (!token) throw notFound('Token');
+  if (!token.revokedAt) await token.update({ revokedAt: new Date() });
+}
+
+/**
+ * The person and token a bearer secret belongs to, or null when it is unknown or revoked: one query (every
+ * script request makes it). Notes the use, at most once a minute.
+ */
+export async function findTokenUser(secret: string): Promise<{ user: User; token: { id: string; scope: TokenScope } } | null> {
+  const sequelize = AccessToken.sequelize;
+  if (!sequelize) throw new Error('findTokenUser: the models are not initialised on a connection');
+  const [found] = await sequelize.query<TokenOwnerRecord>(
+    `SELECT t.id AS "tokenId", t.scope, t.last_used_at AS "lastUsedAt", t.revoked_at AS "revokedAt",
+            u.id, u.organisation_id AS "organisationId", u.email, u.name, u.is_org_admin AS "isOrgAdmin",
+            u.created_at AS "createdAt", u.updated_at AS "updatedAt", o.name AS "organisationName", o.slug AS "organisationSlug",
+            o.created_at AS "organisationCreatedAt", o.updated_at AS "organisationUpdatedAt"
+     FROM access_tokens t JOIN users u ON u.id = t.user_id JOIN organisations o ON o.id = u.organisation_id
+     WHERE t.token_hash = $1`,
+    { bind: [hashSecret(secret)], type: QueryTypes.SELECT },
+  );
+  if (!found || found.revokedAt !== null) return null;
+  if (found.lastUsedAt === null || Date.now() - found.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
+    await sequelize.query('UPDATE access_tokens SET last_used_at = now() WHERE id = $1', { bind: [found.tokenId] });
+  }
+  const user = User.build(
+    {
+      id: found.id,
+      organisationId: found.organisationId,
+      email: found.email,
+      name: found.name,
+      isOrgAdmin: found.isOrgAdmin,
+      createdAt: found.createdAt,
+      updatedAt: found.updatedAt,
+    },
+    { isNewRecord: false, raw: true },
+  );
+  user.organisation = Organisation.build(
+    {
+      id: found.organisationId,
+      name: found.organisationName,
+      slug: found.organisationSlug,
+      createdAt: found.organisationCreatedAt,
+      updatedAt: found.organisationUpdatedAt,
+    },
+    { isNewRecord: false, raw: true },
+  );
+  return { user, token: { id: found.tokenId, scope: found.scope } };
+}
+
+interface TokenOwnerRecord {
+  tokenId: string;
+  scope: TokenScope;
+  lastUsedAt: Date | null;
+  revokedAt: Date | null;
+  id: string;
+  organisationId: string;
+  email: string;
+  name: string;
+  isOrgAdmin: boolean;
+  createdAt: Date;
+  updatedAt: Date;
+  organisationName: string;
+  organisationSlug: string;
+  organisationCreatedAt: Date;
+  organisationUpdatedAt: Date;
+}

@@ -1,0 +1,145 @@
+/**
+ * Every API route with the status each kind of caller gets: the role matrix calls them all, and the
+ * OpenAPI test checks that each is documented. Targets are chosen so that allowed writes do not change
+ * what the later rows check (no-op writes, versions that are stale on purpose, names unique per actor).
+ */
+export type Actor = 'signedOut' | 'ines' | 'tomas' | 'amara' | 'kenji' | 'lucia' | 'oren' | 'priya';
+export const actors: Actor[] = ['signedOut', 'ines', 'tomas', 'amara', 'kenji', 'lucia', 'oren', 'priya'];
+
+/** Ids the paths are filled with: Tern, its draft and Optics subsystem, two people, and a token of Tomás. */
+export interface Ids {
+  craftId: string;
+  revisionId: string;
+  subsystemId: string;
+  ines: string;
+  tomas: string;
+  tokenId: string;
+}
+
+export interface RouteCase {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  /** The path as the OpenAPI document writes it, `{name}` for each parameter. */
+  template: string;
+  /** Fills the template's parameters; defaults to the ids of the same names. */
+  fill?: (ids: Ids) => Record<string, string>;
+  query?: string;
+  body?: (actor: Actor) => object;
+  expected: Partial<Record<Actor, number>> & { default: number };
+  /** Ends the session it is called with, so it runs on a session of its own. */
+  endsSession?: true;
+  /** Answers with a stream that never ends on its own: read the status, then hang up. */
+  stream?: true;
+  /** Not an API route (the JSON 404 for unknown paths): not in the OpenAPI document. */
+  undocumented?: true;
+}
+
+const signedInOnly = { signedOut: 401, default: 200 };
+const craftMembersOnly = { signedOut: 401, priya: 404, default: 200 };
+const adminsOnly = (allowed: number, otherOrg: number) => ({ signedOut: 401, ines: allowed, priya: otherOrg, default: 403 });
+/** Systems and chief engineers manage rows and subsystems; everyone else on the craft is refused. */
+const engineersOnly = (allowed: number) => ({ signedOut: 401, tomas: allowed, amara: allowed, priya: 404, default: 403 });
+const craft = '/api/crafts/{craftId}';
+const revision = `${craft}/revisions/{revisionId}`;
+const actorKey = (actor: Actor) => `matrix_${actor.toLowerCase()}`;
+
+export const routeCases: RouteCase[] = [
+  { method: 'get', template: '/api/health', expected: { default: 200 } },
+  { method: 'get', template: '/api/openapi.json', expected: { default: 200 } },
+  { method: 'get', template: '/api/auth/session', expected: { default: 200 } },
+  { method: 'get', template: '/api/auth/google', expected: { default: 302 } },
+  { method: 'get', template: '/api/auth/sso', expected: { default: 302 } },
+  { method: 'get', template: '/api/account/tokens', expected: signedInOnly },
+  {
+    method: 'post',
+    template: '/api/account/tokens',
+    body: (actor) => ({ name: `Script of ${actor}`, scope: 'read' }),
+    expected: { signedOut: 401, default: 201 },
+  },
+  { method: 'delete', template: '/api/account/tokens/{tokenId}', expected: { signedOut: 401, tomas: 204, default: 404 } },
+  { method: 'get', template: '/api/templates', expected: signedInOnly },
+  { method: 'get', template: '/api/crafts', expected: signedInOnly },
+  { method: 'post', template: '/api/crafts', body: (actor) => ({ name: `Matrix craft by ${actor}` }), expected: adminsOnly(201, 201) },
+  {
+    method: 'post',
+    template: '/api/crafts',
+    body: (actor) => ({ name: `Copy by ${actor}`, copyOf: '{craftId}' }),
+    expected: adminsOnly(201, 404),
+  },
+  { method: 'get', template: craft, expected: craftMembersOnly },
+  {
+    method: 'patch',
+    template: craft,
+    body: () => ({ description: 'Square-sail technology demonstrator on a 12U bus, four diagonal booms.' }),
+    expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 },
+  },
+  { method: 'get', template: `${craft}/members`, expected: craftMembersOnly },
+  { method: 'get', template: `${craft}/revisions`, expected: craftMembersOnly },
+  { method: 'get', template: revision, expected: craftMembersOnly },
+  { method: 'get', template: `${revision}/evaluation`, expected: craftMembersOnly },
+  {
+    method: 'post',
+    template: `${revision}/parameters`,
+    body: (actor) => ({ parameter: { key: actorKey(actor), label: `Row of ${actor}`, subsystem: 'Spacecraft', unit: 'kg', value: 0.1 } }),
+    expected: engineersOnly(201),
+  },
+  // The same value again: allowed writes change nothing. Sail side is shared with the partner, booms are Kenji's.
+  {
+    method: 'patch',
+    template: `${revision}/parameters/{key}`,
+    fill: () => ({ key: 'sail_side' }),
+    body: () => ({ version: 2, value: 45 }),
+    expected: engineersOnly(200),
+  },
+  {
+    method: 'patch',
+    template: `${revision}/parameters/{key}`,
+    fill: () => ({ key: 'boom_count' }),
+    body: () => ({ version: 1, value: 4 }),
+    expected: { ...engineersOnly(200), kenji: 200, lucia: 404 },
+  },
+  // A stale version: those allowed to delete get 409 version_conflict, so nothing is deleted.
+  {
+    method: 'delete',
+    template: `${revision}/parameters/{key}`,
+    fill: () => ({ key: 'front_coating_thickness' }),
+    query: 'version=999',
+    expected: engineersOnly(409),
+  },
+  { method: 'post', template: `${craft}/subsystems`, body: (actor) => ({ name: `Matrix ${actor}` }), expected: engineersOnly(201) },
+  { method: 'patch', template: `${craft}/subsystems/{subsystemId}`, body: () => ({ name: 'Optics' }), expected: engineersOnly(200) },
+  // Optics has rows: those allowed to delete it get 409 in_use.
+  { method: 'delete', template: `${craft}/subsystems/{subsystemId}`, expected: engineersOnly(409) },
+  { method: 'get', template: `${craft}/events`, expected: craftMembersOnly, stream: true },
+  {
+    method: 'put',
+    template: `${craft}/members/{userId}`,
+    fill: (ids) => ({ userId: ids.ines }),
+    body: () => ({ role: 'viewer' }),
+    expected: adminsOnly(200, 404),
+  },
+  { method: 'delete', template: `${craft}/members/{userId}`, fill: (ids) => ({ userId: ids.ines }), expected: adminsOnly(204, 404) },
+  { method: 'get', template: '/api/organisation', expected: signedInOnly },
+  {
+    method: 'post',
+    template: '/api/organisation/invitations',
+    body: (actor) => ({ name: `Invitee of ${actor}`, email: `invitee-${actor.toLowerCase()}@corvid-sailworks.example` }),
+    expected: adminsOnly(201, 201),
+  },
+  {
+    method: 'put',
+    template: '/api/organisation/people/{userId}/admin',
+    fill: (ids) => ({ userId: ids.tomas }),
+    body: () => ({ isOrgAdmin: false }),
+    expected: adminsOnly(200, 404),
+  },
+  { method: 'get', template: '/api/no-such-route', expected: { default: 404 }, undocumented: true },
+  // Last: signing out everywhere also ends the sessions the rows above use.
+  { method: 'post', template: '/api/auth/sign-out', expected: { default: 204 }, endsSession: true },
+  { method: 'post', template: '/api/auth/sign-out-everywhere', expected: { signedOut: 401, default: 204 }, endsSession: true },
+];
+
+/** The route's template with its `{name}` parameters (in the path and in a body's strings) replaced by ids. */
+export function fillTemplate(text: string, route: Pick<RouteCase, 'fill'>, ids: Ids): string {
+  const values: Record<string, string> = { ...ids, ...(route.fill?.(ids) ?? {}) };
+  return text.replace(/\{(\w+)\}/g, (whole, name: string) => values[name] ?? whole);
+}
