@@ -9,9 +9,9 @@ export const colors = {
   border: '#D9D1BF',
   ink: '#14244A',
   inkMuted: '#4F5C7A',
-  inkFaint: '#7A8398',
-  accent: '#B4521C',
-  accentPressed: '#8F3F13',
+  inkFaint: '#58627C',
+  accent: '#9E4716',
+  accentPressed: '#7A3510',
   accentSoft: '#F6E3D3',
   /** The accent as it reads on ink-blue panels. */
   accentOnInk: '#F4A771',
