@@ -7,8 +7,9 @@ import { FormError } from '@/components/ui/form';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
+import { AccessTokens } from './access-tokens';
 
-/** Who is signed in, in which organisation, and the two ways to sign out. */
+/** Who is signed in, in which organisation, their personal access tokens, and the two ways to sign out. */
 export function AccountScreen() {
   const user = useSessionUser();
   const signOut = useSignOut();
@@ -27,6 +28,7 @@ export function AccountScreen() {
           </View>
         </Card>
       ) : null}
+      <AccessTokens />
       <Card>
         <AppText variant="heading">Sign out</AppText>
         <AppText variant="muted">“Sign out everywhere” ends your sessions on every device and browser.</AppText>

@@ -7,6 +7,11 @@ type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 /** Same origin unless the build names another API host. */
 const baseUrl = process.env.EXPO_PUBLIC_API_URL ?? '';
 
+/** The full address of an API path, for clients other than fetch (the EventSource of an events stream). */
+export function apiUrl(path: string): string {
+  return `${baseUrl}${path}`;
+}
+
 /** A failed API call: the HTTP status and the server's `{ error: { code, message, details } }`. */
 export class ApiError extends Error {
   readonly status: number;
@@ -82,7 +87,7 @@ async function send<S extends z.ZodType | undefined>(
 
   let response: Response;
   try {
-    response = await fetch(`${baseUrl}${path}`, {
+    response = await fetch(apiUrl(path), {
       method,
       headers,
       credentials: 'include',

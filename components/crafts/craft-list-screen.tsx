@@ -8,19 +8,21 @@ import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
+import { mayInOrganisation } from '@/shared/access/permissions';
 import { CraftCard } from './craft-card';
 import { CraftForm } from './craft-form';
-import { craftListOptions, useCreateCraft } from './queries';
+import { CraftOriginChooser, type CraftOrigin } from './craft-origin-chooser';
+import { craftListOptions, templateListOptions, useCreateCraft } from './queries';
 
-/** The crafts the signed-in person works on; org admins can start a new one here. */
+/** The crafts the signed-in person works on; those who may create crafts start a new one here. */
 export function CraftListScreen() {
   const user = useSessionUser();
   const crafts = useQuery(craftListOptions());
-  const isOrgAdmin = user?.isOrgAdmin ?? false;
+  const mayCreate = user !== null && mayInOrganisation('createCraft', user);
 
   return (
     <Screen title="Crafts" subtitle={user ? user.organisation.name : undefined}>
-      {isOrgAdmin ? <NewCraft /> : null}
+      {mayCreate ? <NewCraft /> : null}
       <View testID="craft-list" style={styles.list}>
         {crafts.isPending ? (
           <LoadingState label="Loading crafts…" />
@@ -29,7 +31,7 @@ export function CraftListScreen() {
         ) : crafts.data.length === 0 ? (
           <EmptyState
             title="No crafts yet"
-            message={isOrgAdmin ? 'Start the first craft with “New craft”.' : 'An organisation admin can add you to a craft.'}
+            message={mayCreate ? 'Start the first craft with “New craft”.' : 'An organisation admin can add you to a craft.'}
           />
         ) : (
           crafts.data.map((craft) => <CraftCard key={craft.id} craft={craft} />)
@@ -41,14 +43,20 @@ export function CraftListScreen() {
 
 function NewCraft() {
   const [open, setOpen] = useState(false);
+  const [chosen, setChosen] = useState<CraftOrigin | null>(null);
+  const templates = useQuery({ ...templateListOptions(), enabled: open });
   const createCraft = useCreateCraft();
   if (!open) return <Button label="New craft" onPress={() => setOpen(true)} style={styles.newButton} testID="new-craft" />;
+  // Until the person chooses, the first template is the natural start.
+  const firstTemplate = templates.data?.[0];
+  const origin = chosen ?? (firstTemplate === undefined ? null : { templateId: firstTemplate.id });
   return (
-    <Card>
+    <Card testID="new-craft-card">
       <AppText variant="heading">New craft</AppText>
+      <CraftOriginChooser value={origin} onChange={setChosen} />
       <CraftForm
         submitLabel="Create craft"
-        onSubmit={(body) => createCraft.mutateAsync(body)}
+        onSubmit={(body) => createCraft.mutateAsync({ ...body, ...origin })}
         onSaved={() => setOpen(false)}
         onCancel={() => setOpen(false)}
         testID="new-craft"

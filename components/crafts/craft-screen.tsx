@@ -61,6 +61,9 @@ export function CraftScreen({ craftId }: { craftId: string }) {
   return (
     <Screen title={craft.data.name} aside={back}>
       <CraftSummary craft={craft.data} canEdit={mayOnCraft('editCraftDetails', who)} />
+      <Link href={`/crafts/${craftId}/sheet`} asChild>
+        <Button label="Open the sheet" role="link" style={styles.start} testID="craft-open-sheet" />
+      </Link>
       <CraftMembers craftId={craftId} canManage={mayOnCraft('manageMembers', who)} />
     </Screen>
   );

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateCraftBody, UpdateCraftBody } from '@/shared/schemas/crafts';
-import { createCraft, getCraft, listCrafts, updateCraft } from './api';
+import { createCraft, getCraft, listCrafts, listTemplates, updateCraft } from './api';
 
 /** Query keys for crafts, general to specific. */
 export const craftKeys = {
@@ -8,6 +8,14 @@ export const craftKeys = {
   list: () => [...craftKeys.all, 'list'] as const,
   detail: (craftId: string) => [...craftKeys.all, 'detail', craftId] as const,
 };
+
+/** Query keys for the templates a craft can start from: one list, the same for everyone. */
+export const templateKeys = {
+  all: ['templates'] as const,
+};
+
+/** The templates, which change only with a release. */
+export const templateListOptions = () => queryOptions({ queryKey: templateKeys.all, queryFn: listTemplates, staleTime: Infinity });
 
 /** The caller's crafts. */
 export const craftListOptions = () => queryOptions({ queryKey: craftKeys.list(), queryFn: listCrafts });

@@ -9,6 +9,7 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { Toggle } from '@/components/ui/toggle';
 import { space } from '@/components/ui/theme';
+import { mayInOrganisation } from '@/shared/access/permissions';
 import type { Invitation, Person } from '@/shared/schemas/organisation';
 import { InviteForm } from './invite-form';
 import { organisationOptions, useSetOrgAdmin } from './queries';
@@ -16,9 +17,9 @@ import { organisationOptions, useSetOrgAdmin } from './queries';
 /** Organisation admins: the organisation's people, who is an admin, and invitations. */
 export function PeopleScreen() {
   const organisation = useQuery(organisationOptions());
-  const isOrgAdmin = useSessionUser()?.isOrgAdmin ?? false;
+  const user = useSessionUser();
 
-  if (!isOrgAdmin) {
+  if (user === null || !mayInOrganisation('invitePeople', user)) {
     return (
       <Screen title="People">
         <EmptyState title="For organisation admins" message="Only organisation admins manage people and invitations." />
@@ -42,7 +43,9 @@ export function PeopleScreen() {
             {organisation.data.people.length === 0 ? (
               <EmptyState title="No people" message="Invite someone below." />
             ) : (
-              organisation.data.people.map((person) => <PersonRow key={person.id} person={person} />)
+              organisation.data.people.map((person) => (
+                <PersonRow key={person.id} person={person} canSetAdmin={mayInOrganisation('setOrgAdmin', user)} />
+              ))
             )}
           </DividedList>
           <Card>
@@ -67,7 +70,7 @@ export function PeopleScreen() {
   );
 }
 
-function PersonRow({ person }: { person: Person }) {
+function PersonRow({ person, canSetAdmin }: { person: Person; canSetAdmin: boolean }) {
   const setOrgAdmin = useSetOrgAdmin();
   return (
     <View style={styles.row} testID={`org-person-${person.id}`}>
@@ -81,7 +84,7 @@ function PersonRow({ person }: { person: Person }) {
         <Toggle
           label={`Organisation admin: ${person.name}`}
           value={person.isOrgAdmin}
-          disabled={setOrgAdmin.isPending}
+          disabled={!canSetAdmin || setOrgAdmin.isPending}
           onChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
           testID={`org-person-${person.id}-admin`}
         />

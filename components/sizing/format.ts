@@ -56,10 +56,34 @@ export function formatUnit(unit: string): string {
     .replace(/\*/g, '·');
 }
 
-/** A value with its unit, e.g. "1600 m²", "0.07806" for a pure number, "263.2 K". */
+// Units that take an SI prefix as they stand; a value of one of them that would need a power of ten gets a prefix instead.
+const prefixable = new Set(['m', 'N', 'W', 'Pa', 'J', 's', 'Hz', 'V', 'A']);
+const prefixes: readonly (readonly [number, string])[] = [
+  [-12, 'p'],
+  [-9, 'n'],
+  [-6, 'µ'],
+  [-3, 'm'],
+  [3, 'k'],
+  [6, 'M'],
+  [9, 'G'],
+];
+
+/** The value and unit with an SI prefix when fixed notation would need a power of ten: 2.5e-6 m → 2.5 µm. */
+function withPrefix(value: number, unit: string, significant: number): { value: number; unit: string } {
+  const magnitude = Math.abs(Number(value.toPrecision(significant)));
+  if (!prefixable.has(unit.trim()) || !Number.isFinite(value) || magnitude === 0 || (magnitude >= fixedFrom && magnitude < fixedBelow)) {
+    return { value, unit };
+  }
+  const exponent = Math.max(-12, Math.min(9, Math.floor(Math.log10(magnitude) / 3) * 3));
+  const prefix = prefixes.find(([power]) => power === exponent);
+  return prefix === undefined ? { value, unit } : { value: value / 10 ** exponent, unit: `${prefix[1]}${unit.trim()}` };
+}
+
+/** A value with its unit, e.g. "1600 m²", "0.07806" for a pure number, "263.2 K", "2.5 µm" for 2.5e-6 m. */
 export function formatQuantity(value: number, unit: string, significant = 4): string {
-  const shown = formatUnit(unit);
-  const number = formatNumber(value, significant);
+  const prefixed = withPrefix(value, unit, significant);
+  const shown = formatUnit(prefixed.unit);
+  const number = formatNumber(prefixed.value, significant);
   if (shown === '') return number;
   return shown === '°' ? `${number}°` : `${number} ${shown}`;
 }

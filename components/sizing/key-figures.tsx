@@ -4,21 +4,12 @@ import { Card } from '@/components/ui/card';
 import { Disclosure } from '@/components/ui/disclosure';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
+import { headlineFigures } from '@/shared/analyses';
 import { findPreset } from '@/shared/budget';
 import { formatNumber, formatQuantity } from './format';
+import { evaluationOf } from './analyses/sheet-values';
 import { SizingCaution } from './sizing-caution';
 import type { SheetSnapshot } from './use-sheet-session';
-
-/** The performance rows a sizing review looks at first, by the template's keys. */
-const rowFigures = [
-  { key: 'sail_area', label: 'Sail area' },
-  { key: 'areal_density', label: 'Areal density' },
-  { key: 'characteristic_acceleration', label: 'Characteristic acceleration' },
-  { key: 'lightness_number', label: 'Lightness number' },
-  { key: 'srp_force', label: 'SRP force (ideal sail)' },
-  { key: 'srp_force_optical', label: 'SRP force (optical model)' },
-  { key: 'sail_temperature', label: 'Sail temperature' },
-] as const;
 
 type FigureProps = {
   figureKey: string;
@@ -44,34 +35,26 @@ function Figure({ figureKey, label, value, detail, problem, flag, wide = false }
   );
 }
 
-function MassFigures({ snapshot }: { snapshot: SheetSnapshot }) {
-  const { budget } = snapshot;
-  if (!budget.ok) {
-    const problem = budget.errors.map((error) => error.message).join('\n') || 'the mass budget cannot be rolled up';
-    return (
-      <>
-        <Figure figureKey="total_mass" label="Total mass (CBE)" value="—" />
-        <Figure figureKey="predicted_mass" label="Predicted mass" value="—" />
-        <Figure figureKey="system_margin" label="System margin" value="—" problem={problem} wide />
-      </>
-    );
-  }
-  const { total, systemMargin } = budget.result;
-  const share = `${formatNumber(systemMargin.percentOfAllocation, 3)} % of allocation\nrequired: ${formatNumber(systemMargin.requiredPercent, 3)} %`;
-  return (
-    <>
-      <Figure figureKey="total_mass" label="Total mass (CBE)" value={formatQuantity(total.cbe, 'kg')} />
-      <Figure figureKey="predicted_mass" label="Predicted mass" value={formatQuantity(total.predicted, 'kg')} />
-      <Figure
-        figureKey="system_margin"
-        label="System margin"
-        value={formatQuantity(systemMargin.kg, 'kg')}
-        detail={share}
-        flag={systemMargin.belowRequired ? 'Below the required margin' : undefined}
-        wide
-      />
-    </>
-  );
+/** The margin's share of the allocation and the share required, from the budget roll-up. */
+function marginDetail(snapshot: SheetSnapshot): string | undefined {
+  if (!snapshot.budget.ok) return undefined;
+  const { systemMargin } = snapshot.budget.result;
+  return `${formatNumber(systemMargin.percentOfAllocation, 3)} % of allocation\nrequired: ${formatNumber(systemMargin.requiredPercent, 3)} %`;
+}
+
+/** Why the budget cannot be rolled up, shown under the margin (each message names its row). */
+function budgetProblem(snapshot: SheetSnapshot): string | undefined {
+  if (snapshot.budget.ok) return undefined;
+  return snapshot.budget.errors.map((error) => error.message).join('\n') || 'the mass budget cannot be rolled up';
+}
+
+function joinProblems(...problems: (string | undefined)[]): string | undefined {
+  const present = problems.filter((problem): problem is string => problem !== undefined);
+  return present.length === 0 ? undefined : present.join('\n');
+}
+
+function sentenceCase(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 function AllowanceNote({ presetId }: { presetId: string | undefined }) {
@@ -85,28 +68,29 @@ function AllowanceNote({ presetId }: { presetId: string | undefined }) {
   );
 }
 
-/** The sizing results at a glance: performance figures from the sheet's rows and the mass budget roll-up. */
+/** The sizing results at a glance: the sheet's headline figures, found by role, and the budget roll-up's margin. */
 export function KeyFigures({ snapshot }: { snapshot: SheetSnapshot }) {
-  const present = rowFigures.filter((figure) => snapshot.sheet.parameters.some((parameter) => parameter.key === figure.key));
+  const figures = headlineFigures(snapshot.sheet, evaluationOf(snapshot));
   return (
     <Card testID="key-figures">
       <AppText variant="heading">Key figures</AppText>
       <SizingCaution testID="key-figures-caution" />
       <View style={styles.grid}>
-        {present.map((figure) => {
-          const value = snapshot.values[figure.key];
-          const error = snapshot.errors.find((candidate) => candidate.key === figure.key);
+        {figures.map((figure) => {
+          const margin = figure.role === 'system_margin';
           return (
             <Figure
-              key={figure.key}
+              key={figure.role}
               figureKey={figure.key}
               label={figure.label}
-              value={value === undefined ? '—' : formatQuantity(value.value, value.unit)}
-              problem={value === undefined ? (error?.message ?? 'no value') : undefined}
+              value={figure.value === undefined ? '—' : formatQuantity(figure.value, figure.unit)}
+              detail={margin ? marginDetail(snapshot) : undefined}
+              problem={joinProblems(figure.problem, margin ? budgetProblem(snapshot) : undefined)}
+              flag={figure.flag === undefined ? undefined : sentenceCase(figure.flag)}
+              wide={margin}
             />
           );
         })}
-        <MassFigures snapshot={snapshot} />
       </View>
       <AllowanceNote presetId={snapshot.sheet.budget?.preset} />
     </Card>

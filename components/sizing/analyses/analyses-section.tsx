@@ -3,6 +3,7 @@ import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import type { SheetSnapshot } from '../use-sheet-session';
 import { ConeSweepAnalysis } from './cone-sweep';
+import { FilmThicknessAnalysis } from './film-thickness-trade';
 import { GoalSeekAnalysis } from './goal-seek';
 import { DragCrossoverAnalysis, SpiralAnalysis } from './mission-checks';
 import { TemperatureAnalysis } from './temperature-analysis';
@@ -21,8 +22,9 @@ export function AnalysesSection({ snapshot, onSetInput }: AnalysesSectionProps) 
       <AppText variant="title">Analyses</AppText>
       <AppText variant="muted">Run on the sheet as you have edited it; each result carries its caveat.</AppText>
       <ConeSweepAnalysis sheet={snapshot.sheet} />
+      <FilmThicknessAnalysis sheet={snapshot.sheet} testID="analysis-film-thickness" />
       <GoalSeekAnalysis sheet={snapshot.sheet} onApply={onSetInput} />
-      <TemperatureAnalysis snapshot={snapshot} />
+      <TemperatureAnalysis sheet={snapshot.sheet} />
       <AppText variant="heading">Mission checks (first-order)</AppText>
       <DragCrossoverAnalysis snapshot={snapshot} />
       <SpiralAnalysis snapshot={snapshot} />

@@ -1,34 +1,25 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { Button } from '@/components/ui/button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { TextField } from '@/components/ui/text-field';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
-import { goalSeek, type AnalysisResult, type GoalSeekResult } from '@/shared/engine';
+import { sizeToTarget, sizingChoices } from '@/shared/analyses';
+import type { AnalysisResult, GoalSeekResult } from '@/shared/engine';
 import type { Sheet } from '@/shared/schemas/sheet';
+import { rowRoleDefinitions, sheetRoles, type RowRole } from '@/shared/templates';
 import { editText, formatQuantity, formatUnit } from '../format';
 import { AnalysisCard, AnalysisProblems } from './analysis-card';
 
-/** Inputs a sizing review solves for, with a range that brackets the template's designs (in each row's unit). */
-const inputs = [
-  { value: 'sail_side', label: 'Sail side', from: '10', to: '200' },
-  { value: 'film_thickness', label: 'Film thickness', from: '0.5', to: '12' },
-  { value: 'payload_mass', label: 'Payload mass', from: '0', to: '50' },
-  { value: 'bus_mass', label: 'Bus mass', from: '0', to: '50' },
-  { value: 'deployer_mass', label: 'Deployer mass', from: '0', to: '30' },
-] as const;
-
-const outputs = [
-  { value: 'characteristic_acceleration', label: 'Characteristic acceleration' },
-  { value: 'areal_density', label: 'Areal density' },
-  { value: 'lightness_number', label: 'Lightness number' },
-  { value: 'system_margin', label: 'System margin' },
-  { value: 'sail_temperature', label: 'Sail temperature' },
-] as const;
-
-type InputKey = (typeof inputs)[number]['value'];
-type OutputKey = (typeof outputs)[number]['value'];
+/** The outputs a sizing review solves for, by role, when the sheet has them. */
+const outputRoles: readonly RowRole[] = [
+  'characteristic_acceleration',
+  'areal_density',
+  'lightness_number',
+  'system_margin',
+  'sail_temperature',
+];
 
 export type GoalSeekAnalysisProps = {
   sheet: Sheet;
@@ -36,7 +27,8 @@ export type GoalSeekAnalysisProps = {
   onApply: (key: string, text: string) => void;
 };
 
-function unitOf(sheet: Sheet, key: string): string {
+function unitOf(sheet: Sheet, role: RowRole): string {
+  const key = sheetRoles(sheet)[role];
   return formatUnit(sheet.parameters.find((parameter) => parameter.key === key)?.unit ?? '');
 }
 
@@ -46,20 +38,25 @@ function withUnit(label: string, unit: string): string {
 
 /** "Find <input> so that <output> = <target>" on the current sheet, solved when asked. */
 export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
-  const [input, setInput] = useState<InputKey>('sail_side');
-  const [output, setOutput] = useState<OutputKey>('characteristic_acceleration');
-  const [range, setRange] = useState({ from: '10', to: '200' });
+  const inputs = useMemo(() => sizingChoices(sheet).map((choice) => ({ ...choice, value: choice.role })), [sheet]);
+  const outputs = useMemo(() => {
+    const roles = sheetRoles(sheet);
+    return outputRoles.filter((role) => roles[role] !== undefined).map((role) => ({ value: role, label: rowRoleDefinitions[role].label }));
+  }, [sheet]);
+  const [input, setInput] = useState<RowRole>(inputs[0]?.role ?? 'sail_side');
+  const [output, setOutput] = useState<RowRole>(outputs[0]?.value ?? 'characteristic_acceleration');
+  const [range, setRange] = useState({ from: inputs[0]?.from ?? '', to: inputs[0]?.to ?? '' });
   const [target, setTarget] = useState('0.5');
   // An answer belongs to the sheet it was solved on; after an edit it is no longer shown.
   const [answer, setAnswer] = useState<{ sheet: Sheet; result: AnalysisResult<GoalSeekResult> } | undefined>(undefined);
 
-  const chooseInput = (key: InputKey) => {
-    const choice = inputs.find((candidate) => candidate.value === key);
-    setInput(key);
+  const chooseInput = (role: RowRole) => {
+    const choice = inputs.find((candidate) => candidate.role === role);
+    setInput(role);
     if (choice !== undefined) setRange({ from: choice.from, to: choice.to });
     setAnswer(undefined);
   };
-  const run = () => setAnswer({ sheet, result: goalSeek(sheet, { input, output, from: range.from, to: range.to, target }) });
+  const run = () => setAnswer({ sheet, result: sizeToTarget(sheet, { input, output, from: range.from, to: range.to, target }) });
   const inputUnit = unitOf(sheet, input);
   const outputUnit = unitOf(sheet, output);
 

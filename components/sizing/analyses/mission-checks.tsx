@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import { TextField } from '@/components/ui/text-field';
 import { AppText } from '@/components/ui/text';
+import { roleValuesSI } from '@/shared/analyses';
 import { valueInRowUnit } from '@/shared/engine';
 import {
   ASTRONOMICAL_UNIT,
@@ -10,10 +11,11 @@ import {
   dragCrossoverAltitude,
   logSpiralTransfer,
 } from '@/shared/sail';
+import { sheetRoles } from '@/shared/templates';
 import { formatNumber, formatQuantity } from '../format';
 import type { SheetSnapshot } from '../use-sheet-session';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
-import { degrees, messageOf, radians, readValues } from './sheet-values';
+import { degrees, evaluationOf, messageOf, radians } from './sheet-values';
 
 /** Mean orbital radius of Mars, 1.524 AU (from memory). */
 export const MARS_ORBIT_AU = 1.524;
@@ -24,10 +26,10 @@ const spiralConeKey = 'spiral_cone_angle';
 /** The Earth-orbit altitude above which radiation pressure on the sheet's sail exceeds drag. */
 export function DragCrossoverAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
   const crossover = useMemo(() => {
-    const read = readValues(snapshot, ['sail_efficiency'] as const);
-    if (!read.ok) return { ok: false as const, problems: read.problems };
+    const read = roleValuesSI(snapshot.sheet, evaluationOf(snapshot), ['sail_efficiency']);
+    if (!read.ok) return { ok: false as const, problems: read.errors.map((error) => error.message) };
     try {
-      const result = dragCrossoverAltitude({ efficiency: read.values.sail_efficiency });
+      const result = dragCrossoverAltitude({ efficiency: read.result.sail_efficiency });
       return result.ok ? { ok: true as const, result } : { ok: false as const, problems: [result.reason] };
     } catch (error) {
       return { ok: false as const, problems: [`sail_efficiency: ${messageOf(error)}`] };
@@ -64,15 +66,16 @@ export function DragCrossoverAnalysis({ snapshot }: { snapshot: SheetSnapshot })
 export function SpiralAnalysis({ snapshot }: { snapshot: SheetSnapshot }) {
   const [coneText, setConeText] = useState(`${formatNumber(degrees(IDEAL_BEST_TRANSVERSE_CONE_ANGLE), 4)} deg`);
   const transfer = useMemo(() => {
-    const read = readValues(snapshot, ['lightness_number'] as const);
+    const read = roleValuesSI(snapshot.sheet, evaluationOf(snapshot), ['lightness_number']);
     const cone = valueInRowUnit({ key: spiralConeKey, label: 'Cone angle', subsystem: 'Trajectory', unit: 'deg', value: 0 }, coneText);
-    const problems = [...(read.ok ? [] : read.problems), ...(cone.ok ? [] : [cone.error.message])];
+    const problems = [...(read.ok ? [] : read.errors.map((error) => error.message)), ...(cone.ok ? [] : [cone.error.message])];
     if (!read.ok || !cone.ok) return { ok: false as const, problems };
-    const beta = read.values.lightness_number;
+    const beta = read.result.lightness_number;
     if (beta <= 0) {
+      const key = sheetRoles(snapshot.sheet).lightness_number ?? 'lightness_number';
       return {
         ok: false as const,
-        problems: [`lightness_number: is ${formatNumber(beta, 4)}; a spiral needs a sail that gives thrust, a lightness number above 0`],
+        problems: [`${key}: is ${formatNumber(beta, 4)}; a spiral needs a sail that gives thrust, a lightness number above 0`],
       };
     }
     try {

@@ -10,6 +10,8 @@ const craft: Craft = {
   name: 'Kite-1 pathfinder',
   description: 'Demo craft for the tests',
   myRole: 'subsystem_owner',
+  templateId: 'square-sail',
+  draftRevisionId: null,
   createdAt: '2026-11-02T09:00:00.000Z',
   updatedAt: '2026-11-20T16:30:00.000Z',
 };
@@ -102,5 +104,58 @@ describe('CraftListScreen', () => {
     fireEvent.click(screen.getByTestId('new-craft-submit'));
     expect((await screen.findByTestId('new-craft-name-error')).textContent).toBe('must not be empty');
     expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
+  });
+  describe('the new-craft chooser', () => {
+    const templates = [
+      { id: 'square-sail', name: 'Square sail', description: 'Four booms from a central hub.', parameterCount: 48 },
+      { id: 'heliogyro', name: 'Heliogyro', description: 'Blades spun out from a hub.', parameterCount: 30 },
+    ];
+
+    function renderChooser() {
+      const fetchMock = mockFetch({
+        'GET /api/crafts': { status: 200, body: { crafts: [craft] } },
+        'GET /api/templates': { status: 200, body: { templates } },
+        'GET /api/auth/session': { status: 200, body: { user: demoUser, csrfToken: 'test-csrf-token', providers: [] } },
+        'POST /api/crafts': (body) => ({
+          status: 201,
+          body: { ...craft, id: '1b2c3d4e-5f60-4718-8293-a4b5c6d7e8f9', ...(body as object) },
+        }),
+      });
+      renderList();
+      fireEvent.click(screen.getByRole('button', { name: 'New craft' }));
+      return fetchMock;
+    }
+
+    async function postedBody(fetchMock: jest.Mock): Promise<unknown> {
+      await waitFor(() => expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(true));
+      const post = fetchMock.mock.calls.find(([, init]) => init?.method === 'POST');
+      return JSON.parse(String(post?.[1]?.body));
+    }
+
+    it('offers each template with its name and description, the first one chosen', async () => {
+      renderChooser();
+      const list = await screen.findByTestId('craft-origin-templates');
+      expect(within(list).getByText('Square sail')).toBeTruthy();
+      expect(within(list).getByText('Blades spun out from a hub. (30 rows)')).toBeTruthy();
+      expect(screen.getByRole('radio', { name: 'Square sail' }).getAttribute('aria-checked')).toBe('true');
+      expect(screen.getByRole('radio', { name: 'Heliogyro' }).getAttribute('aria-checked')).toBe('false');
+    });
+
+    it('sends the chosen template as templateId', async () => {
+      const fetchMock = renderChooser();
+      fireEvent.click(await screen.findByRole('radio', { name: 'Heliogyro' }));
+      fireEvent.change(screen.getByTestId('new-craft-name'), { target: { value: 'Gyro-2' } });
+      fireEvent.click(screen.getByTestId('new-craft-submit'));
+      expect(await postedBody(fetchMock)).toEqual({ name: 'Gyro-2', description: '', templateId: 'heliogyro' });
+    });
+
+    it('sends a craft to copy as copyOf', async () => {
+      const fetchMock = renderChooser();
+      fireEvent.click(await screen.findByRole('radio', { name: 'Copy of Kite-1 pathfinder' }));
+      expect(screen.getByRole('radio', { name: 'Square sail' }).getAttribute('aria-checked')).toBe('false');
+      fireEvent.change(screen.getByTestId('new-craft-name'), { target: { value: 'Kite-1 B' } });
+      fireEvent.click(screen.getByTestId('new-craft-submit'));
+      expect(await postedBody(fetchMock)).toEqual({ name: 'Kite-1 B', description: '', copyOf: craft.id });
+    });
   });
 });

@@ -17,6 +17,8 @@ function craftWith(myRole: CraftRole | null): Craft {
     name: 'Kite-1 pathfinder',
     description: 'Demo craft',
     myRole,
+    templateId: 'square-sail',
+    draftRevisionId: null,
     createdAt: '2026-11-02T09:00:00.000Z',
     updatedAt: '2026-11-20T16:30:00.000Z',
   };

@@ -47,6 +47,16 @@ describe('formatQuantity', () => {
     expect(formatQuantity(0.078, '')).toBe('0.078');
     expect(formatQuantity(35, 'deg')).toBe('35°');
   });
+
+  it('gives an SI prefix instead of a power of ten to units that take one', () => {
+    // 2.5 µm film (the template's thickness) as its conversion to metres leaves it.
+    expect(formatQuantity(2.4999999999999998e-6, 'm')).toBe('2.5 µm');
+    expect(formatQuantity(4.5e-4, 'N')).toBe('450 µN');
+    expect(formatQuantity(3.2e7, 'W')).toBe('32 MW');
+    // Fixed notation where it reads well, and no prefix on compound units.
+    expect(formatQuantity(0.0058, 'N')).toBe('0.0058 N');
+    expect(formatQuantity(2.5e-6, 'kg/m^2')).toBe('2.5 × 10⁻⁶ kg/m²');
+  });
 });
 
 describe('editText', () => {

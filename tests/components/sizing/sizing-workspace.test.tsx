@@ -26,9 +26,24 @@ function renderWorkspace(sheet: Sheet) {
 const brokenSheet: Sheet = {
   name: 'Broken',
   parameters: [
-    { key: 'sail_side', label: 'Sail side length', subsystem: 'Sail membrane', unit: 'm', value: 20 },
-    { key: 'sail_area', label: 'Sail area', subsystem: 'Sail membrane', unit: 'm^2', formula: '=sail_side * missing_row' },
+    { key: 'sail_side', label: 'Sail side length', subsystem: 'Sail membrane', unit: 'm', value: 20, role: 'sail_side' },
+    {
+      key: 'sail_area',
+      label: 'Sail area',
+      subsystem: 'Sail membrane',
+      unit: 'm^2',
+      formula: '=sail_side * missing_row',
+      role: 'sail_area',
+    },
     { key: 'membrane_mass', label: 'Membrane mass', subsystem: 'Sail membrane', unit: 'kg', formula: '=sail_side + 1' },
+    {
+      key: 'sail_loading',
+      label: 'Sail loading',
+      subsystem: 'Performance',
+      unit: 'g/m^2',
+      formula: '=membrane_mass / sail_area',
+      role: 'areal_density',
+    },
   ],
 };
 
@@ -37,7 +52,9 @@ describe('SizingWorkspace', () => {
     renderWorkspace(brokenSheet);
     expect(screen.getByTestId('param-error-sail_area').textContent).toContain('missing_row');
     expect(screen.getByTestId('param-error-membrane_mass').textContent).toContain('membrane_mass');
-    expect(screen.getByTestId('key-figure-sail_area').textContent).toContain('—');
+    // The headline figure is found by its role, under the row's own key, and names the row it depends on.
+    expect(screen.getByTestId('key-figure-sail_loading').textContent).toContain('—');
+    expect(screen.getByTestId('key-figure-sail_loading').textContent).toContain('sail_loading: depends on');
     expect((screen.getByTestId('param-input-sail_side') as HTMLInputElement).value).toBe('20');
     expect(screen.getByRole('button', { name: 'Start again' })).toBeTruthy();
   });

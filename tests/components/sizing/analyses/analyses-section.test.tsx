@@ -7,9 +7,6 @@ import {
   DRAG_CROSSOVER_CAVEAT,
   IDEAL_BEST_TRANSVERSE_CONE_ANGLE,
   LOG_SPIRAL_CAVEAT,
-  REFERENCE_SAIL_OPTICS,
-  bestTransverseConeAngle,
-  closestSafeDistance,
   dragCrossoverAltitude,
   logSpiralTransfer,
 } from '@/shared/sail';
@@ -65,10 +62,22 @@ describe('AnalysesSection on the what-if workspace', () => {
     const best = numberIn(text('best-transverse-cone-angle'), /([\d.]+)°/);
     // McInnes 1999 ch. 2: ideal sail tan α = 1/√2, α = 35.26°; the optical model of the template is close.
     expect(Math.abs(best - 35.2)).toBeLessThanOrEqual(0.2);
-    // Cross-check with the optical force model of shared/sail for the template's optics (McInnes 1999 ch. 2, after Wright 1992, from memory).
-    expect(best).toBeCloseTo(bestTransverseConeAngle({ kind: 'optical', optics: REFERENCE_SAIL_OPTICS }) / degree, 1);
+    // The sheet's own force-across-the-sun-line row is smaller a tenth of a degree either side of the angle shown.
+    const across = (angle: number) =>
+      evaluateSheet(squareSailTemplate(), { cone_angle: angle }).values.srp_force_circumferential?.value ?? 0;
+    expect(across(best)).toBeGreaterThan(across(best + 0.1));
+    expect(across(best)).toBeGreaterThan(across(best - 0.1));
     expect(within(screen.getByTestId('analysis-cone-sweep')).getByText(/35\.26° \(McInnes 1999, Solar Sailing, ch\. 2\)/)).toBeTruthy();
     expect(IDEAL_BEST_TRANSVERSE_CONE_ANGLE / degree).toBeCloseTo(35.26, 2);
+  });
+
+  it('trades film thickness: a line for the sheet film, half and double it', () => {
+    renderWorkspace();
+    const card = screen.getByTestId('analysis-film-thickness');
+    for (const label of ['1.25 µm film', '2.5 µm film', '5 µm film']) expect(within(card).getAllByText(label).length).toBeGreaterThan(0);
+    expect(within(card).getAllByText(/Sail side \(m\)/).length).toBeGreaterThan(0);
+    editRow('film_thickness', '5');
+    for (const label of ['2.5 µm film', '5 µm film', '10 µm film']) expect(within(card).getAllByText(label).length).toBeGreaterThan(0);
   });
 
   it('solves for the sail side that gives a reachable characteristic acceleration, and applies it', () => {
@@ -96,7 +105,7 @@ describe('AnalysesSection on the what-if workspace', () => {
     type('goal-seek-target', '100');
     fireEvent.click(screen.getByTestId('goal-seek-run'));
     expect(text('goal-seek-result')).toMatch(
-      /no solution: for sail_side from 10 to 200 m, characteristic_acceleration stays between .* never reaches 100 mm\/s\^2/,
+      /no solution: for sail_side from 5 to 200 m, characteristic_acceleration stays between .* never reaches 100 mm\/s\^2/,
     );
   });
 
@@ -107,17 +116,17 @@ describe('AnalysesSection on the what-if workspace', () => {
     expect(text('goal-seek-result')).toContain('sail_side: unit "m" expects');
   });
 
-  it('finds the closest safe distance for a 673 K film limit with the sheet optics', () => {
+  it('finds the closest safe distance for a 673 K film limit from the sheet temperature row', () => {
     renderWorkspace();
-    // Library default: polyimide continuous service up to about 400 °C (Kapton HN datasheet, from memory).
+    // The sheet's film limit row: polyimide continuous service up to about 400 °C (Kapton HN datasheet, from memory).
     expect(field('temperature-limit').value).toBe('673.15 K');
     type('temperature-limit', '673 K');
-    // Cross-check with shared/sail at the template's cone angle 0 and its optics.
-    const expected = closestSafeDistance(673, 0, REFERENCE_SAIL_OPTICS) / ASTRONOMICAL_UNIT.value;
-    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+    // Radiative equilibrium with the tabulated coefficients (McInnes 1999 ch. 2): (263 K / 673 K)^2 AU = 0.153 AU.
+    const shown = text('closest-safe-distance');
+    expect(numberIn(shown, /([\d.]+) AU/)).toBeCloseTo(0.153, 3);
     // 673 K is 399.85 °C (the kelvin scale is offset by 273.15).
     type('temperature-limit', '399.85 degC');
-    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+    expect(text('closest-safe-distance')).toBe(shown);
     type('temperature-limit', '5 kg');
     expect(screen.getByTestId('temperature-limit-error').textContent).toContain('temperature_limit');
     type('temperature-limit', '');
@@ -129,8 +138,11 @@ describe('AnalysesSection on the what-if workspace', () => {
     renderWorkspace();
     editRow('cone_angle', '60');
     type('temperature-limit', '673 K');
-    const expected = closestSafeDistance(673, 60 * degree, REFERENCE_SAIL_OPTICS) / ASTRONOMICAL_UNIT.value;
-    expect(text('closest-safe-distance')).toBe(formatQuantity(expected, 'AU'));
+    // McInnes 1999 ch. 2: T^4 is proportional to cos(alpha) / r^2, so at 60° the limit is reached sqrt(2) times closer.
+    const au = numberIn(text('closest-safe-distance'), /([\d.]+) AU/);
+    expect(au).toBeCloseTo(0.153 / Math.SQRT2, 3);
+    const back = evaluateSheet(squareSailTemplate(), { cone_angle: 60, distance: au }).values.sail_temperature?.value ?? 0;
+    expect(Math.abs(back - 673) / 673).toBeLessThan(1e-3);
   });
 
   it('shows the drag crossover altitude for the sheet efficiency, with its caveat', () => {
@@ -167,7 +179,9 @@ describe('AnalysesSection on the what-if workspace', () => {
   it('says why there is no spiral when the lightness number is above the largest a spiral allows', () => {
     renderWorkspace({
       name: 'Fast sail',
-      parameters: [{ key: 'lightness_number', label: 'Lightness number', subsystem: 'Performance', unit: '', value: 2 }],
+      parameters: [
+        { key: 'lightness_number', label: 'Lightness number', subsystem: 'Performance', unit: '', value: 2, role: 'lightness_number' },
+      ],
     });
     // McInnes 1999 ch. 4: β_max = sin γ cos γ / (cos³α sin γ cos γ + cos²α sin α (2 − sin²γ)) at tan γ = √2, below 2 at 35.26°.
     expect(text('spiral-error')).toContain('the largest for which a logarithmic spiral exists at cone angle 35.26°');
@@ -181,7 +195,8 @@ describe('AnalysesSection on the what-if workspace', () => {
       parameters: [{ key: 'sail_side', label: 'Sail side length', subsystem: 'Sail membrane', unit: 'm', value: 20 }],
     });
     expect(text('analysis-cone-sweep-error')).toContain('cone_angle');
-    expect(text('analysis-temperature-error')).toContain('reflectivity: the sheet has no row with this key');
+    expect(text('analysis-temperature-error')).toContain('no row of the sheet has the role "sail_temperature"');
+    expect(text('analysis-film-thickness-problems')).toContain('film_thickness');
     expect(text('drag-crossover-error')).toContain('sail_efficiency');
     expect(text('spiral-error')).toContain('lightness_number');
   });

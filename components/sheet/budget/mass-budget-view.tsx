@@ -1,0 +1,183 @@
+import { useMemo } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { BarChart } from '@/components/ui/bar-chart';
+import { Card } from '@/components/ui/card';
+import { DividedList } from '@/components/ui/divided-list';
+import { MarginBar } from '@/components/ui/margin-bar';
+import { AppText } from '@/components/ui/text';
+import { colors, fonts, space } from '@/components/ui/theme';
+import { formatNumber, formatQuantity } from '@/components/sizing/format';
+import { SizingCaution } from '@/components/sizing/sizing-caution';
+import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
+import { findRoleRows, roleValuesSI } from '@/shared/analyses';
+import type { BudgetRollUp } from '@/shared/budget';
+
+// The subsystems' bars cycle through the palette's inks and accent so neighbours differ.
+const barColors = [colors.ink, colors.accent, colors.inkMuted, colors.success, colors.focus, colors.accentPressed];
+
+/** A share of the total as "42.1 %"; "—" when there is no total. */
+function share(part: number, total: number): string {
+  return total > 0 ? `${formatNumber((part / total) * 100, 3)} %` : '—';
+}
+
+/** A mass in kg as the table's cells show it: the unit is in the column's heading. */
+function kilograms(value: number): string {
+  return formatNumber(value);
+}
+
+/** An allowance fraction (0.2) as "20 %". */
+function allowancePercent(fraction: number): string {
+  return `${formatNumber(fraction * 100, 3)} %`;
+}
+
+type Cells = readonly [string, string, string, string, string];
+
+function BudgetLine({
+  cells,
+  strong = false,
+  header = false,
+  testID,
+}: {
+  cells: Cells;
+  strong?: boolean;
+  header?: boolean;
+  testID?: string;
+}) {
+  const [name, ...numbers] = cells;
+  return (
+    <View style={styles.line} testID={testID}>
+      <AppText variant={header ? 'label' : 'body'} style={[styles.name, strong && styles.strong]}>
+        {name}
+      </AppText>
+      {numbers.map((text, i) => (
+        <AppText key={i} variant={header ? 'label' : 'mono'} style={[styles.number, strong && styles.strongNumber]}>
+          {text}
+        </AppText>
+      ))}
+    </View>
+  );
+}
+
+function BudgetTable({ budget, labelOf }: { budget: BudgetRollUp; labelOf: (key: string) => string }) {
+  const total = budget.total.predicted;
+  return (
+    <DividedList testID="mass-budget-table">
+      <BudgetLine cells={['Subsystem / row', 'Basic mass (kg)', 'Allowance', 'Predicted (kg)', 'Share']} header />
+      {budget.bySubsystem.flatMap((subsystem) => [
+        <BudgetLine
+          key={subsystem.subsystem}
+          strong
+          testID={`budget-subsystem-${subsystem.subsystem}`}
+          cells={[
+            subsystem.subsystem,
+            kilograms(subsystem.cbe),
+            // The subsystem's allowance is the growth its rows add together.
+            subsystem.cbe > 0 ? allowancePercent(subsystem.predicted / subsystem.cbe - 1) : '—',
+            kilograms(subsystem.predicted),
+            share(subsystem.predicted, total),
+          ]}
+        />,
+        ...budget.rows
+          .filter((row) => row.subsystem === subsystem.subsystem)
+          .map((row) => (
+            <BudgetLine
+              key={row.key}
+              testID={`budget-row-${row.key}`}
+              cells={[
+                `  ${labelOf(row.key)}`,
+                kilograms(row.cbe),
+                allowancePercent(row.allowance),
+                kilograms(row.predicted),
+                share(row.predicted, total),
+              ]}
+            />
+          )),
+      ])}
+      <BudgetLine
+        strong
+        testID="budget-total"
+        cells={['Total', kilograms(budget.total.cbe), '', kilograms(budget.total.predicted), share(total, total)]}
+      />
+    </DividedList>
+  );
+}
+
+/**
+ * The mass budget by subsystem: basic mass, growth allowance, predicted mass and share of the total,
+ * a chart of the shares, and the predicted mass against the allocation with the required margin.
+ */
+export function MassBudgetView({ snapshot }: { snapshot: SheetSnapshot }) {
+  const { budget, sheet } = snapshot;
+  const allocation = useMemo(() => {
+    const found = roleValuesSI(sheet, { values: snapshot.values, errors: [...snapshot.errors] }, ['mass_allocation']);
+    return found.ok ? found.result.mass_allocation : undefined;
+  }, [sheet, snapshot]);
+  const allocationRow = useMemo(() => {
+    const rows = findRoleRows(sheet, ['mass_allocation']);
+    return rows.ok ? rows.result.mass_allocation.parameter.label : 'Mass allocation';
+  }, [sheet]);
+  const labelOf = (key: string) => sheet.parameters.find((parameter) => parameter.key === key)?.label ?? key;
+
+  return (
+    <Card testID="mass-budget-view">
+      <AppText variant="heading">Mass budget</AppText>
+      {!budget.ok ? (
+        <View role="alert" style={styles.problems} testID="mass-budget-problems">
+          {budget.errors.map((error) => (
+            <AppText key={`${error.key}${error.message}`} variant="error">
+              {error.message}
+            </AppText>
+          ))}
+        </View>
+      ) : (
+        <>
+          <BudgetTable budget={budget.result} labelOf={labelOf} />
+          <BarChart
+            title="Share of the predicted mass by subsystem"
+            bars={budget.result.bySubsystem.map((subsystem, i) => ({
+              label: subsystem.subsystem,
+              value: budget.result.total.predicted > 0 ? (subsystem.predicted / budget.result.total.predicted) * 100 : Number.NaN,
+              color: barColors[i % barColors.length] ?? colors.ink,
+            }))}
+            valueLabel="Share of the predicted mass (%)"
+            categoryLabel="Subsystem"
+            formatValue={(value) => `${formatNumber(value, 3)} %`}
+            testID="mass-budget-shares"
+          />
+          {allocation !== undefined ? (
+            <MarginBar
+              title={`Predicted mass against the ${allocationRow.toLowerCase()}`}
+              allocation={allocation}
+              predicted={budget.result.total.predicted}
+              requiredMargin={(allocation * budget.result.systemMargin.requiredPercent) / 100}
+              belowRequired={budget.result.systemMargin.belowRequired}
+              valueLabel="Mass (kg)"
+              formatValue={(value) => formatQuantity(value, 'kg')}
+              testID="mass-budget-margin"
+            />
+          ) : null}
+          <AppText
+            variant={budget.result.systemMargin.belowRequired ? 'error' : 'muted'}
+            role={budget.result.systemMargin.belowRequired ? 'alert' : undefined}
+            testID="mass-budget-margin-text"
+          >
+            System margin {formatQuantity(budget.result.systemMargin.kg, 'kg')} (
+            {formatNumber(budget.result.systemMargin.percentOfAllocation, 3)} % of the allocation); required{' '}
+            {formatNumber(budget.result.systemMargin.requiredPercent, 3)} %
+            {budget.result.systemMargin.belowRequired ? ': below the required margin.' : '.'}
+          </AppText>
+        </>
+      )}
+      <SizingCaution testID="mass-budget-caution" />
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  problems: { gap: space.xs },
+  line: { flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingVertical: space.xs, paddingHorizontal: space.md },
+  name: { flex: 1.6, minWidth: 84, fontSize: 14 },
+  strong: { fontFamily: fonts.semibold },
+  number: { flex: 1, minWidth: 44, textAlign: 'right', color: colors.ink, fontVariant: ['tabular-nums'] },
+  strongNumber: { fontFamily: fonts.monoMedium },
+});

@@ -1,0 +1,241 @@
+import { memo, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { Pressable, ScrollView, StyleSheet, View, type TextInput } from 'react-native';
+import { formatUnit } from '@/components/sizing/format';
+import { useLiveRow } from '@/components/sizing/use-sheet-session';
+import { AppText } from '@/components/ui/text';
+import { colors, fonts, fontSizes, radii, space } from '@/components/ui/theme';
+import { computedText, RowNotices, statusText } from './row-feedback';
+import { bindRow, type RowBinding, type SheetRowsProps } from './row-binding';
+import { definitionText, ValueInput, type CellNavigation } from './value-input';
+
+export type SheetTableProps = SheetRowsProps & {
+  /** The label of a mass row's maturity id. */
+  maturityLabel: (maturity: string) => string;
+};
+
+const columns = [
+  { title: 'Parameter', style: { flex: 2.2, minWidth: 140 } },
+  { title: 'Key', style: { flex: 1.4, minWidth: 110 } },
+  { title: 'Value or formula', style: { flex: 2.2, minWidth: 150 } },
+  { title: 'Unit', style: { width: 84 } },
+  { title: 'Computed', style: { flex: 1.3, minWidth: 110 }, right: true },
+  { title: 'Subsystem', style: { flex: 1.2, minWidth: 100 } },
+  { title: 'Maturity', style: { flex: 1.1, minWidth: 90 } },
+  { title: 'Status', style: { flex: 1.8, minWidth: 120 } },
+  { title: '', style: { width: 64 } },
+] as const;
+
+const cell = (index: number) => columns[index]?.style;
+
+type RowProps = RowBinding & {
+  maturityLabel: (maturity: string) => string;
+  navigation: CellNavigation;
+  onOpenRow: (key: string) => void;
+};
+
+/** One table row, subscribed to its own live value: a keystroke elsewhere does not re-render it. */
+const SheetTableRow = memo(function SheetTableRow({
+  rowKey,
+  rows,
+  actions,
+  access,
+  message,
+  conflict,
+  maturityLabel,
+  navigation,
+  onOpenRow,
+}: RowProps) {
+  const live = useLiveRow(rows, rowKey);
+  const { parameter } = live;
+  if (parameter === undefined) return null;
+  const status = statusText(live);
+  const editable = access?.editable === true && parameter.protected !== true;
+  return (
+    <View style={styles.row} testID={`sheet-row-${rowKey}`}>
+      <View style={styles.cells} role="row">
+        <AppText style={[styles.cellText, styles.label, cell(0)]} numberOfLines={2} role="cell">
+          {parameter.label}
+        </AppText>
+        <AppText style={[styles.mono, styles.faint, cell(1)]} numberOfLines={1} role="cell">
+          {rowKey}
+        </AppText>
+        <View style={cell(2)} role="cell">
+          {editable ? (
+            <ValueInput
+              parameter={parameter}
+              computed={live.value?.value}
+              invalid={live.rejection !== undefined}
+              actions={actions}
+              navigation={navigation}
+              compact
+            />
+          ) : (
+            <AppText style={[styles.mono, styles.readOnlyValue]} numberOfLines={2}>
+              {definitionText(parameter)}
+            </AppText>
+          )}
+        </View>
+        <AppText style={[styles.mono, cell(3)]} role="cell">
+          {formatUnit(parameter.unit)}
+        </AppText>
+        <AppText style={[styles.mono, styles.number, cell(4)]} testID={`sheet-value-${rowKey}`} role="cell">
+          {computedText(live)}
+        </AppText>
+        <AppText style={[styles.cellText, styles.small, cell(5)]} numberOfLines={1} role="cell">
+          {parameter.subsystem}
+        </AppText>
+        <AppText style={[styles.cellText, styles.small, cell(6)]} numberOfLines={1} role="cell">
+          {parameter.mass === undefined ? '' : maturityLabel(parameter.mass.maturity)}
+        </AppText>
+        <AppText
+          style={[styles.small, status.ok ? styles.ok : styles.problem, cell(7)]}
+          numberOfLines={3}
+          testID={`sheet-status-${rowKey}`}
+          role="cell"
+        >
+          {status.text}
+        </AppText>
+        <View style={cell(8)} role="cell">
+          {access?.editable === true || access?.manage === true ? (
+            <Pressable
+              role="button"
+              aria-label={`Edit ${parameter.label}`}
+              onPress={() => onOpenRow(rowKey)}
+              style={styles.more}
+              testID={`sheet-open-${rowKey}`}
+            >
+              <AppText style={styles.moreText}>Edit</AppText>
+            </Pressable>
+          ) : null}
+        </View>
+      </View>
+      {message !== undefined || access?.readOnlyReason !== undefined || conflict !== undefined ? (
+        // What is said under the row is a table row of its own, one cell wide, so the table stays a table to assistive technology.
+        <View role="row">
+          <View role="cell">
+            <RowNotices rowKey={rowKey} message={message} readOnlyReason={access?.readOnlyReason} conflict={conflict} actions={actions} />
+          </View>
+        </View>
+      ) : null}
+    </View>
+  );
+});
+
+/**
+ * The sheet on a wide screen: a dense table grouped by subsystem (groups fold away), with a header that
+ * stays in view. Arrow keys move between the value fields of neighbouring rows, Tab between cells.
+ */
+export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
+  const { groups, maturityLabel, onOpenRow } = props;
+  const [collapsed, setCollapsed] = useState<ReadonlySet<string>>(new Set());
+  const inputs = useRef(new Map<string, TextInput>());
+  const order = useRef<string[]>([]);
+  useLayoutEffect(() => {
+    order.current = groups.filter((group) => !collapsed.has(group.subsystem)).flatMap((group) => group.keys);
+  });
+
+  const navigation = useMemo<CellNavigation>(
+    () => ({
+      register: (key, input) => {
+        if (input === null) inputs.current.delete(key);
+        else inputs.current.set(key, input);
+      },
+      move: (key, step) => {
+        const keys = order.current.filter((candidate) => inputs.current.has(candidate));
+        const next = keys[keys.indexOf(key) + step];
+        if (next !== undefined) inputs.current.get(next)?.focus();
+      },
+    }),
+    [],
+  );
+
+  const toggle = (subsystem: string) =>
+    setCollapsed((now) => {
+      const next = new Set(now);
+      if (!next.delete(subsystem)) next.add(subsystem);
+      return next;
+    });
+
+  return (
+    <ScrollView style={styles.scroll} stickyHeaderIndices={[0]} testID="sheet-table" role="table">
+      <View style={[styles.cells, styles.header]} role="row">
+        {columns.map((column, index) => (
+          <AppText
+            key={column.title || index}
+            variant="label"
+            style={['right' in column ? styles.number : undefined, column.style]}
+            role="columnheader"
+          >
+            {column.title}
+          </AppText>
+        ))}
+      </View>
+      {groups.map((group) => {
+        const open = !collapsed.has(group.subsystem);
+        return (
+          <View key={group.subsystem} role="rowgroup">
+            <View role="row">
+              <View role="rowheader" style={styles.groupCell}>
+                <Pressable
+                  role="button"
+                  aria-expanded={open}
+                  onPress={() => toggle(group.subsystem)}
+                  style={styles.groupHeader}
+                  testID={`sheet-group-${group.subsystem}`}
+                >
+                  <AppText style={styles.groupTitle}>
+                    {open ? '▾' : '▸'} {group.subsystem}
+                  </AppText>
+                  <AppText variant="muted" style={styles.small}>
+                    {group.keys.length} {group.keys.length === 1 ? 'row' : 'rows'}
+                  </AppText>
+                </Pressable>
+              </View>
+            </View>
+            {open
+              ? group.keys.map((key) => (
+                  <SheetTableRow
+                    key={key}
+                    {...bindRow(props, key)}
+                    maturityLabel={maturityLabel}
+                    navigation={navigation}
+                    onOpenRow={onOpenRow}
+                  />
+                ))
+              : null}
+          </View>
+        );
+      })}
+    </ScrollView>
+  );
+});
+
+const styles = StyleSheet.create({
+  scroll: { flex: 1, borderWidth: 1, borderColor: colors.border, borderRadius: radii.md, backgroundColor: colors.surface },
+  header: { backgroundColor: colors.surfaceSunken, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.border },
+  cells: { flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md },
+  row: { paddingVertical: 3, borderBottomWidth: StyleSheet.hairlineWidth, borderBottomColor: colors.border, paddingRight: space.md },
+  groupCell: { flex: 1 },
+  groupHeader: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: 36,
+    paddingHorizontal: space.md,
+    backgroundColor: colors.background,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.border,
+  },
+  groupTitle: { fontFamily: fonts.semibold },
+  cellText: { fontSize: fontSizes.small, lineHeight: 18 },
+  label: { fontFamily: fonts.medium },
+  mono: { fontFamily: fonts.mono, fontSize: fontSizes.small, lineHeight: 18, color: colors.ink },
+  faint: { color: colors.inkFaint },
+  number: { textAlign: 'right' },
+  readOnlyValue: { color: colors.inkMuted, textAlign: 'right' },
+  small: { fontSize: fontSizes.small, lineHeight: 18 },
+  ok: { color: colors.success },
+  problem: { color: colors.danger },
+  more: { minHeight: 32, justifyContent: 'center', alignItems: 'center', borderRadius: radii.sm },
+  moreText: { color: colors.accent, fontFamily: fonts.semibold, fontSize: fontSizes.small },
+});

@@ -1,0 +1,90 @@
+import { useMemo } from 'react';
+import { Platform, ScrollView, StyleSheet, useWindowDimensions, View, type ViewStyle } from 'react-native';
+import { Badge } from '@/components/ui/badge';
+import { Card } from '@/components/ui/card';
+import { AppText } from '@/components/ui/text';
+import { colors, fonts, sideNavBreakpoint, space } from '@/components/ui/theme';
+import { formatNumber, formatQuantity } from '@/components/sizing/format';
+import { SizingCaution } from '@/components/sizing/sizing-caution';
+import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
+import { headlineFigures, type HeadlineFigure } from '@/shared/analyses';
+
+// On the web the card stays in view while the sheet scrolls under it; `sticky` is a web-only position.
+const stickyOnWeb = (Platform.OS === 'web' ? { position: 'sticky', top: 0, zIndex: 2 } : {}) as ViewStyle;
+
+/** The margin's share of the allocation and the required share, from the budget roll-up. */
+function marginDetail(snapshot: SheetSnapshot): string | undefined {
+  if (!snapshot.budget.ok) return undefined;
+  const { percentOfAllocation, requiredPercent } = snapshot.budget.result.systemMargin;
+  return `${formatNumber(percentOfAllocation, 3)} % of allocation · required ${formatNumber(requiredPercent, 3)} %`;
+}
+
+/** The text with a capital first letter, as a badge reads. */
+function sentence(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+function Figure({ figure, detail, compact }: { figure: HeadlineFigure; detail: string | undefined; compact: boolean }) {
+  const flagged = figure.flag !== undefined;
+  return (
+    <View
+      style={[styles.figure, compact && styles.compactFigure, flagged && styles.flaggedFigure]}
+      testID={`summary-figure-${figure.role}`}
+    >
+      <AppText variant="label">{figure.label}</AppText>
+      <AppText style={[styles.value, figure.value === undefined && styles.missing, flagged && styles.flaggedValue]}>
+        {figure.value === undefined ? '—' : formatQuantity(figure.value, figure.unit)}
+      </AppText>
+      {detail !== undefined ? <AppText variant="mono">{detail}</AppText> : null}
+      {figure.flag !== undefined ? <Badge label={sentence(figure.flag)} strong /> : null}
+      {figure.problem !== undefined ? <AppText variant="error">{figure.problem}</AppText> : null}
+    </View>
+  );
+}
+
+/**
+ * The sheet's headline figures, found by role in shared code: areal density, characteristic
+ * acceleration, lightness number, force, temperature, predicted mass and margin, the margin in the
+ * warning style below the required margin. Stays in view as the sheet scrolls, with the caution.
+ */
+export function SheetSummary({ snapshot }: { snapshot: SheetSnapshot }) {
+  const figures = useMemo(() => headlineFigures(snapshot.sheet, { values: snapshot.values, errors: [...snapshot.errors] }), [snapshot]);
+  const flagged = figures.some((figure) => figure.flag !== undefined);
+  // A phone keeps the card short, so the sheet stays visible under it: one row that scrolls sideways.
+  const compact = useWindowDimensions().width < sideNavBreakpoint;
+  const items = figures.map((figure) => (
+    <Figure
+      key={figure.role}
+      figure={figure}
+      detail={figure.role === 'system_margin' ? marginDetail(snapshot) : undefined}
+      compact={compact}
+    />
+  ));
+  return (
+    <Card style={[styles.card, stickyOnWeb, flagged && styles.flaggedCard]} testID="sheet-summary">
+      <AppText variant="heading">Summary</AppText>
+      {compact ? (
+        // Focusable, so the figures scrolled out of view can be reached from the keyboard too.
+        <ScrollView horizontal contentContainerStyle={styles.row} tabIndex={0} aria-label="Summary figures">
+          {items}
+        </ScrollView>
+      ) : (
+        <View style={styles.grid}>{items}</View>
+      )}
+      <SizingCaution testID="sheet-summary-caution" />
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space.sm },
+  flaggedCard: { borderColor: colors.danger },
+  grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.sm },
+  row: { columnGap: space.lg },
+  figure: { flexGrow: 1, flexBasis: 140, minWidth: 130, gap: 2 },
+  compactFigure: { flexGrow: 0, flexBasis: 'auto' },
+  flaggedFigure: { borderLeftWidth: 3, borderLeftColor: colors.danger, paddingLeft: space.sm, backgroundColor: colors.dangerSoft },
+  value: { fontFamily: fonts.monoMedium, fontSize: 17, lineHeight: 24, color: colors.ink, fontVariant: ['tabular-nums'] },
+  missing: { color: colors.inkFaint },
+  flaggedValue: { color: colors.danger },
+});
