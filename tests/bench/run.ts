@@ -1,13 +1,15 @@
 /**
  * `npm run bench`: medians of the engine's timings on this machine. Targets: single-edit
  * recompute on 1,000 parameters under 2 ms; a 10,000-point sweep of one input reading three
- * outputs under 200 ms. A script, not a test: jest never runs it.
+ * outputs under 200 ms; each What-if analysis on the template under 50 ms. A script, not a test: jest never runs it.
  */
+import { coneAngleSeries, filmThicknessTrade, temperatureVersusDistance } from '@/shared/analyses';
 import { sweep, type SweepAxis } from '@/shared/engine/analyses';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { evaluateSheet } from '@/shared/engine/evaluate';
 import { createSheetSession } from '@/shared/engine/session';
 import { squareSailTemplate } from '@/shared/templates';
+import { runProductBenchmarks } from '@/tests/bench/product';
 import { syntheticSheet } from '@/tests/bench/synthetic-sheet';
 
 function median(samples: number[]): number {
@@ -97,3 +99,29 @@ const thousand = syntheticSheet(1000);
 benchSweep('1,000-parameter sheet (p_0)', thousand, sweepOfFirst, lastThree(thousand), 10, 200);
 const tenThousand = syntheticSheet(10_000);
 benchSweep('10,000-parameter sheet (p_0)', tenThousand, sweepOfFirst, lastThree(tenThousand), 3);
+
+// The What-if and Sheet screens rerun these after every edit: each must fit well inside a frame budget of a few tens of ms.
+{
+  const template = squareSailTemplate();
+  report(
+    'coneAngleSeries on the square-sail template (91 points and the maximum)',
+    time(20, () => requireOk(coneAngleSeries(template))),
+    50,
+  );
+  report(
+    'temperatureVersusDistance on the square-sail template (39 points and the closest approach)',
+    time(20, () => requireOk(temperatureVersusDistance(template))),
+    50,
+  );
+  report(
+    'filmThicknessTrade on the square-sail template (3 x 60 points)',
+    time(20, () => requireOk(filmThicknessTrade(template))),
+    50,
+  );
+}
+
+// The running product (web build, browser, server under load), on a stack of its own.
+runProductBenchmarks().catch((error: unknown) => {
+  console.error('[bench]', error);
+  process.exitCode = 1;
+});

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 
 /** Where browser tests leave their screenshots (git-ignored). */
 export const artifactsDir = path.resolve(__dirname, '..', 'artifacts');
@@ -29,3 +29,29 @@ export const viewports = [
   { name: 'phone', width: 390, height: 844 },
   { name: 'desktop', width: 1280, height: 800 },
 ] as const;
+
+/**
+ * Signs a demo person in through the company SSO button and the sign-in fake's page (`subject` as the fake
+ * names them, e.g. 'demo-kenji') and waits for the craft list the app lands on.
+ */
+export async function signInAs(page: Page, appUrl: string, subject: string): Promise<void> {
+  await page.goto(appUrl);
+  await page.getByTestId('sign-in-sso').click();
+  await page.getByTestId(`person-${subject}`).click();
+  await page.waitForURL(/\/crafts$/);
+}
+
+/** One Chromium for the tests of a describe block: launched before them, closed after them. Returns its getter. */
+export function useBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (browser === undefined) throw new Error('the browser is launched in beforeAll: use it inside a test');
+    return browser;
+  };
+}

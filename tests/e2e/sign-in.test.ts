@@ -1,7 +1,6 @@
 import path from 'node:path';
-import type { Browser } from 'playwright-core';
 import { testStack } from '../server/helpers/test-app';
-import { artifactsDir, launchBrowser, viewports } from './browser';
+import { artifactsDir, useBrowser, viewports } from './browser';
 
 const describeInBrowser = testStack.TEST_SKIP_BROWSER === '1' ? describe.skip : describe;
 
@@ -11,20 +10,12 @@ const journeys = [
 ] as const;
 
 describeInBrowser('signing in through the fake', () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  }, 60_000);
-
-  afterAll(async () => {
-    await browser.close();
-  });
+  const browser = useBrowser();
 
   for (const viewport of viewports) {
     for (const journey of journeys) {
       it(`lands on the craft list with ${journey.button} at ${viewport.width}x${viewport.height}`, async () => {
-        const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
+        const context = await browser().newContext({ viewport: { width: viewport.width, height: viewport.height } });
         const page = await context.newPage();
         await page.goto(testStack.TEST_APP_URL);
         await page.getByTestId(journey.button).click();

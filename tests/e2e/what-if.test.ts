@@ -1,22 +1,19 @@
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { testStack } from '../server/helpers/test-app';
-import { artifactsDir, launchBrowser, viewports } from './browser';
+import { artifactsDir, launchBrowser, signInAs, viewports } from './browser';
 
 const describeInBrowser = testStack.TEST_SKIP_BROWSER === '1' ? describe.skip : describe;
 
 async function signInAndOpenWhatIf(page: Page) {
-  await page.goto(testStack.TEST_APP_URL);
-  await page.getByTestId('sign-in-sso').click();
-  await page.getByTestId('person-demo-amara').click();
-  await page.waitForURL(/\/crafts$/);
+  await signInAs(page, testStack.TEST_APP_URL, 'demo-amara');
   await page.getByTestId('nav-what-if').click();
   await page.waitForURL(/\/what-if$/);
   await page.getByTestId('what-if-screen').waitFor();
 }
 
 function sailArea(page: Page): Promise<string> {
-  return page.getByTestId('key-figure-sail_area').innerText();
+  return page.getByTestId('param-sail_area').innerText();
 }
 
 /** Opens What-if in a fresh Chromium at a viewport, runs the steps, and checks the page threw nothing. */
@@ -49,7 +46,7 @@ describeInBrowser('what-if sizing in the browser', () => {
         await side.fill('60 m');
         await side.press('Enter');
         // Geometry: a 60 m square has an area of 3600 m^2.
-        await page.getByTestId('key-figure-sail_area').getByText('3600 m²').waitFor();
+        await page.getByTestId('param-sail_area').getByText('3600 m²').waitFor();
         expect(await side.inputValue()).toBe('60');
 
         await side.fill('25 kg');
@@ -63,7 +60,7 @@ describeInBrowser('what-if sizing in the browser', () => {
         await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}.png`) });
 
         await page.getByTestId('undo').click();
-        await page.getByTestId('key-figure-sail_area').getByText('1600 m²').waitFor();
+        await page.getByTestId('param-sail_area').getByText('1600 m²').waitFor();
         expect(await side.inputValue()).toBe('40');
         expect(await page.getByTestId('redo').isEnabled()).toBe(true);
         expect(await page.getByTestId('undo').isDisabled()).toBe(true);

@@ -1,0 +1,130 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { craftNamed, createToken, signInWithFetch } from './api';
+import { createLargeCraft } from './large-craft';
+import { benchRevisionUnderLoad, benchServerEvaluation } from './server';
+import { startBenchStack } from './stack';
+import { benchKeystrokeToSummary, webDist, webJavaScriptGzipBytes } from './web';
+
+/**
+ * Benchmarks of the running product, after the engine's: the web bundle's size, keystroke to summary in
+ * Chromium, the server's evaluation of a large revision and the revision GET under load. They start their
+ * own stack (tests/bench/stack.ts) and print one table, each figure beside its target. A figure that cannot
+ * be measured (no web build, a request refused) is printed as such and the others still run.
+ */
+
+/** One line of the table: what was measured, the figure, and its target with whether it was met. */
+interface Figure {
+  name: string;
+  measured: string;
+  target?: { text: string; met: boolean };
+}
+
+/** The demo organisation admin: creates the benchmark crafts, and so is their chief engineer. */
+const ADMIN = 'demo-ines';
+/** A member of Tern who reads the whole sheet, as most readers of a revision do (the systems engineer). */
+const READER = 'demo-amara';
+const KEYSTROKE_ROWS = 1000;
+const EVALUATION_ROWS = 5000;
+
+const milliseconds = (value: number) => `${value.toFixed(1)} ms`;
+
+async function measure(figures: Figure[], name: string, work: () => Promise<Figure[]>): Promise<void> {
+  try {
+    figures.push(...(await work()));
+  } catch (error) {
+    process.exitCode = 1;
+    figures.push({
+      name,
+      measured: `failed: ${error instanceof Error ? (error.message.split('\n')[0] ?? '') : String(error)}`.slice(0, 300),
+    });
+  }
+}
+
+function bundleFigure(): Figure {
+  const name = 'web JavaScript, gzip of dist/_expo/static/js/**/*.js';
+  const bytes = webJavaScriptGzipBytes();
+  if (bytes === undefined) return { name, measured: 'skipped: no web build in dist/ (npm start or npm test builds it)' };
+  const limit = 1.5e6;
+  return { name, measured: `${(bytes / 1e6).toFixed(2)} MB`, target: { text: '< 1.5 MB', met: bytes < limit } };
+}
+
+function printTable(figures: readonly Figure[], loadAverage: number): void {
+  const nameWidth = Math.max(...figures.map((figure) => figure.name.length));
+  const measuredWidth = Math.max(...figures.map((figure) => (figure.target ? figure.measured.length : 0)), 10);
+  console.log(
+    `\nthe product on this machine (medians unless said otherwise; load average ${loadAverage.toFixed(1)} on ${os.cpus().length} cores at the start)`,
+  );
+  for (const figure of figures) {
+    const target = figure.target ? `  target ${figure.target.text}: ${figure.target.met ? 'met' : 'MISSED'}` : '';
+    console.log(`${figure.name.padEnd(nameWidth)}  ${figure.target ? figure.measured.padStart(measuredWidth) : figure.measured}${target}`);
+  }
+}
+
+/** Runs the product benchmarks and prints their table; sets a failing exit code when one could not be measured. */
+export async function runProductBenchmarks(): Promise<void> {
+  // Other work on the machine skews every figure: the table says how busy it was.
+  const [loadAverage = 0] = os.loadavg();
+  const figures: Figure[] = [bundleFigure()];
+  const stack = await startBenchStack();
+  try {
+    const api = await signInWithFetch(stack.appUrl, ADMIN);
+    const token = await createToken(api, 'read');
+    const reader = await signInWithFetch(stack.appUrl, READER);
+
+    const keystroke = `keystroke to updated summary, ${KEYSTROKE_ROWS.toLocaleString('en')}-row sheet (Chromium, 1280x800)`;
+    await measure(figures, keystroke, async () => {
+      if (!fs.existsSync(path.join(webDist, 'index.html'))) return [{ name: keystroke, measured: 'skipped: no web build in dist/' }];
+      const craft = await createLargeCraft(api, stack.databaseUrl, KEYSTROKE_ROWS);
+      const { median, mode } = await benchKeystrokeToSummary(stack.appUrl, ADMIN, craft.craftId);
+      return [{ name: `${keystroke}, recomputed ${mode}`, measured: milliseconds(median), target: { text: '< 16 ms', met: median < 16 } }];
+    });
+
+    await measure(figures, `server evaluation of a ${EVALUATION_ROWS.toLocaleString('en')}-row revision`, async () => {
+      const craft = await createLargeCraft(api, stack.databaseUrl, EVALUATION_ROWS);
+      const median = await benchServerEvaluation(stack.appUrl, token, { ...craft, rows: EVALUATION_ROWS });
+      return [
+        {
+          name: `server evaluation of a ${EVALUATION_ROWS.toLocaleString('en')}-row revision (GET .../evaluation)`,
+          measured: milliseconds(median),
+        },
+      ];
+    });
+
+    await measure(figures, 'GET of a revision under 50 connections', async () => {
+      const tern = await craftNamed(reader, 'Tern');
+      const { revision, bare } = await benchRevisionUnderLoad(stack, await createToken(reader, 'read'), {
+        craftId: tern.id,
+        revisionId: tern.draftRevisionId,
+      });
+      const ratio = revision.requestsPerSecond / bare.requestsPerSecond;
+      const rate = (value: number) => `${value.toFixed(0)} req/s`;
+      return [
+        {
+          name: "GET of Tern's draft by its systems engineer, 50 connections for 20 s, bearer token",
+          measured: rate(revision.requestsPerSecond),
+        },
+        { name: 'bare Express + pg SELECT 1, same load', measured: rate(bare.requestsPerSecond) },
+        { name: 'revision GET / bare SELECT 1', measured: `${ratio.toFixed(2)}x`, target: { text: '>= 0.3x', met: ratio >= 0.3 } },
+        {
+          name: 'revision GET, p99 latency',
+          measured: milliseconds(revision.p99Milliseconds),
+          target: { text: '< 50 ms', met: revision.p99Milliseconds < 50 },
+        },
+        {
+          name: 'revision GET, errors, timeouts and non-2xx',
+          measured: String(revision.failures),
+          target: { text: '0', met: revision.failures === 0 },
+        },
+      ];
+    });
+  } finally {
+    // The table comes last, after whatever the stopping server has to say.
+    try {
+      await stack.stop();
+    } finally {
+      printTable(figures, loadAverage);
+    }
+  }
+}

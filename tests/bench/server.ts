@@ -1,0 +1,83 @@
+import autocannon, { type Result } from 'autocannon';
+import path from 'node:path';
+import { z } from 'zod';
+import { inheritedEnvironment } from '@/server/env';
+import { evaluationResponseSchema } from '@/shared/schemas/revisions';
+import { revisionPath } from './api';
+import { spawnTypeScript, waitUntilAnswering, type BenchStack } from './stack';
+import { medianMilliseconds } from './statistics';
+
+/** The yardstick server's port, beside the bench stack's own. */
+const BARE_PORT = 8482;
+
+/**
+ * Median of `GET .../evaluation` (values, errors and budget computed on the server) of a revision, one
+ * request at a time with a bearer token. Checks that every row came back evaluated, so a fast refusal
+ * cannot pass for a fast evaluation.
+ */
+export async function benchServerEvaluation(
+  appUrl: string,
+  token: string,
+  revision: { craftId: string; revisionId: string; rows: number },
+): Promise<number> {
+  const url = `${appUrl}${revisionPath(revision.craftId, revision.revisionId)}/evaluation`;
+  return medianMilliseconds(10, async () => {
+    const response = await fetch(url, { headers: { authorization: `Bearer ${token}` } });
+    if (!response.ok) throw new Error(`GET ${url}: ${response.status} ${(await response.text()).slice(0, 300)}`);
+    const evaluation = evaluationResponseSchema.parse(await response.json());
+    const evaluated = Object.keys(evaluation.values).length + evaluation.errors.length;
+    if (evaluated < revision.rows) throw new Error(`GET ${url} evaluated ${evaluated} of ${revision.rows} rows`);
+  });
+}
+
+/** What one load run measured. */
+export interface LoadFigures {
+  requestsPerSecond: number;
+  p99Milliseconds: number;
+  /** Connection errors, timeouts and non-2xx answers together. */
+  failures: number;
+}
+
+const LOAD = { connections: 50, duration: 20 } as const;
+
+async function load(url: string, headers: Record<string, string> = {}): Promise<LoadFigures> {
+  // A short run first, so both servers are measured warm (JIT, pool connections open).
+  await autocannon({ url, headers, connections: LOAD.connections, duration: 2 });
+  const result: Result = await autocannon({ url, headers, ...LOAD });
+  return {
+    requestsPerSecond: result.requests.average,
+    p99Milliseconds: result.latency.p99,
+    failures: result.errors + result.timeouts + result.non2xx,
+  };
+}
+
+/**
+ * `GET` of a revision under 50 connections for 20 s with a bearer token, and the same load on a bare
+ * Express + pg `SELECT 1` endpoint started here on the same database cluster, one after the other.
+ */
+export async function benchRevisionUnderLoad(
+  stack: BenchStack,
+  token: string,
+  revision: { craftId: string; revisionId: string },
+): Promise<{ revision: LoadFigures; bare: LoadFigures }> {
+  const url = `${stack.appUrl}${revisionPath(revision.craftId, revision.revisionId)}`;
+  const authorization = { authorization: `Bearer ${token}` };
+  const check = await fetch(url, { headers: authorization });
+  if (!check.ok) throw new Error(`GET ${url} with a bearer token: ${check.status} ${(await check.text()).slice(0, 300)}`);
+  z.object({ sheet: z.object({ parameters: z.array(z.unknown()).min(1) }) }).parse(await check.json());
+  const revisionFigures = await load(url, authorization);
+
+  const bare = spawnTypeScript(path.join(__dirname, 'bare-server.ts'), [], {
+    ...inheritedEnvironment(),
+    DATABASE_URL: stack.databaseUrl,
+    HOST: '127.0.0.1',
+    PORT: String(BARE_PORT),
+  });
+  try {
+    const bareUrl = `http://127.0.0.1:${BARE_PORT}/select-one`;
+    await waitUntilAnswering(bareUrl, bare.child);
+    return { revision: revisionFigures, bare: await load(bareUrl) };
+  } finally {
+    await bare.stop();
+  }
+}
