@@ -30,7 +30,11 @@ const EVALUATION_ROWS = 5000;
 
 const milliseconds = (value: number) => `${value.toFixed(1)} ms`;
 
+/** TRIMSHEET_BENCH_ONLY=keystroke|evaluation|load runs just that product benchmark (while working on it). */
+const only = process.env.TRIMSHEET_BENCH_ONLY;
+
 async function measure(figures: Figure[], name: string, work: () => Promise<Figure[]>): Promise<void> {
+  if (only !== undefined && !name.toLowerCase().includes(only)) return;
   try {
     figures.push(...(await work()));
   } catch (error) {
@@ -92,7 +96,7 @@ export async function runProductBenchmarks(): Promise<void> {
       ];
     });
 
-    await measure(figures, 'GET of a revision under 50 connections', async () => {
+    await measure(figures, 'GET of a revision under load, 50 connections', async () => {
       const tern = await craftNamed(reader, 'Tern');
       const { revision, bare } = await benchRevisionUnderLoad(stack, await createToken(reader, 'read'), {
         craftId: tern.id,

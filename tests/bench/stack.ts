@@ -12,9 +12,17 @@ import { inheritedEnvironment } from '@/server/env';
  * The product stack the benchmarks measure, started and stopped by `npm run bench` itself: a throw-away
  * PostgreSQL cluster, migrated and seeded with the demo, the sign-in and mail fakes, and the Trimsheet
  * server in a child process of its own (so the load generator in this process does not share its event loop).
- * Its ports differ from those of `npm start` and `npm test`, so a benchmark can run beside either.
+ * Its ports differ from those of `npm start` and `npm test`, so a benchmark can run beside either;
+ * TRIMSHEET_BENCH_PORT_OFFSET shifts them all, so that two benchmark runs can share a machine.
  */
-export const benchPorts = { app: 8481, postgres: 5734, oidc: 8490, smtp: 2925, inbox: 8425 } as const;
+const portOffset = Number(process.env.TRIMSHEET_BENCH_PORT_OFFSET ?? 0);
+export const benchPorts = {
+  app: 8481 + portOffset,
+  postgres: 5734 + portOffset,
+  oidc: 8490 + portOffset,
+  smtp: 2925 + portOffset,
+  inbox: 8425 + portOffset,
+} as const;
 
 const root = path.resolve(__dirname, '..', '..');
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
