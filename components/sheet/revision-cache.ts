@@ -12,9 +12,19 @@ export function toParameter(row: RevisionParameter): Parameter {
   return parameter;
 }
 
-/** The revision's rows as a sheet for the engine. */
+/**
+ * The revision's rows as a sheet for the engine. A reader who sees only some rows (a partner) gets their
+ * formula rows as the values the server computed over the whole sheet: those formulas read rows they cannot see.
+ */
 export function toSheet(detail: RevisionDetail): Sheet {
-  return { ...detail.sheet, parameters: detail.sheet.parameters.map(toParameter) };
+  const { serverValues } = detail;
+  const parameters = detail.sheet.parameters.map(toParameter).map((parameter): Parameter => {
+    const computed = serverValues?.[parameter.key];
+    if (computed === undefined || parameter.formula === undefined) return parameter;
+    const { formula: _formula, ...input } = parameter;
+    return { ...input, value: computed.value, unit: computed.unit };
+  });
+  return { ...detail.sheet, parameters };
 }
 
 function withRows(detail: RevisionDetail, parameters: RevisionParameter[]): RevisionDetail {

@@ -55,9 +55,21 @@ async function readRevision(user: User, craftId: string, revisionId: string): Pr
   return { who, standing, revision, rows, visibleRows, sheet: () => sheetOf(revision, rows) };
 }
 
-/** The headline figures of the sheet, computed here for readers who do not see every row. */
-function headlineOf(sheet: Sheet): NonNullable<RevisionDetail['headlineFigures']> {
-  return headlineFigures(sheet, evaluateSheet(sheet)).map(({ value, ...figure }) => ({ ...figure, value: value ?? null }));
+/**
+ * What a reader who does not see every row gets computed here over the whole sheet: the headline figures,
+ * and the values of the rows they see (so their formulas show numbers, not references to rows they cannot see).
+ */
+function partialReaderFigures(sheet: Sheet, visibleRows: readonly StoredRow[]): Pick<RevisionDetail, 'headlineFigures' | 'serverValues'> {
+  const evaluation = evaluateSheet(sheet);
+  return {
+    headlineFigures: headlineFigures(sheet, evaluation).map(({ value, ...figure }) => ({ ...figure, value: value ?? null })),
+    serverValues: Object.fromEntries(
+      visibleRows.flatMap((row) => {
+        const value = evaluation.values[row.key];
+        return value === undefined ? [] : [[row.key, value]];
+      }),
+    ),
+  };
 }
 
 /**
@@ -75,7 +87,7 @@ export async function getRevisionDetail(user: User, craftId: string, revisionId:
     sheet: { ...sheetOf(revision, []), parameters: visibleRows.map(toRevisionParameter) },
     subsystems: visibleSubsystems,
     abilities,
-    ...(abilities.wholeSheet ? {} : { headlineFigures: headlineOf(readable.sheet()) }),
+    ...(abilities.wholeSheet ? {} : partialReaderFigures(readable.sheet(), visibleRows)),
   };
 }
 

@@ -86,6 +86,12 @@ export const revisionDetailSchema = z.object({
   abilities: revisionAbilitiesSchema,
   /** Present when the caller does not see the whole sheet: the figures they may read. */
   headlineFigures: z.array(headlineFigureSchema).optional(),
+  /**
+   * Present when the caller does not see the whole sheet: the values of the rows they see, computed on the
+   * server over the whole sheet (their formulas read rows they cannot see), each in its row's unit; a row
+   * with an error on the server is absent.
+   */
+  serverValues: z.record(z.string(), z.object({ value: z.number(), unit: z.string() })).optional(),
 });
 export type RevisionDetail = z.infer<typeof revisionDetailSchema>;
 

@@ -102,6 +102,8 @@ describe('SheetScreen rows', () => {
         },
         { role: 'system_margin', key: 'system_margin', label: 'System margin', value: 1.2, unit: 'kg', flag: 'below the required margin' },
       ],
+      // A formula row shows the value the server computed over the whole sheet, not one from the shared rows alone.
+      serverValues: { membrane_mass: { value: 1.234, unit: 'kg' } },
     };
     renderSheet({ role: 'partner', detail });
     expect((await screen.findByTestId('sheet-headline-characteristic_acceleration')).textContent).toContain('0.0512 mm/s²');
@@ -110,5 +112,7 @@ describe('SheetScreen rows', () => {
     expect(screen.queryByTestId('sheet-input-sail_side')).toBeNull();
     expect(screen.queryByTestId('sheet-row-boom_mass')).toBeNull();
     expect(screen.queryByTestId('sheet-views')).toBeNull();
+    expect(text('sheet-value-membrane_mass')).toBe('1.234 kg');
+    expect(text('sheet-status-membrane_mass')).toBe('ok');
   });
 });

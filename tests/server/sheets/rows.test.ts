@@ -216,6 +216,17 @@ describe('roles on rows', () => {
     expect(draft.headlineFigures?.every((figure) => typeof figure.value === 'number')).toBe(true);
   });
 
+  it("gives a partner their rows' values computed over the whole sheet, and no other row's", async () => {
+    const draft = await readDraft(lucia, ternId);
+    const whole = await readDraft(amara, ternId);
+    const evaluation = evaluateSheet(whole.sheet);
+    // A formula row's value comes from the evaluation of the whole sheet, as the systems engineer's does.
+    expect(rowOf(draft, 'membrane_mass').formula).toBeDefined();
+    expect(draft.serverValues?.membrane_mass).toEqual(evaluation.values.membrane_mass);
+    expect(Object.keys(draft.serverValues ?? {}).sort()).toEqual(draft.sheet.parameters.map((parameter) => parameter.key).sort());
+    expect(whole.serverValues).toBeUndefined();
+  });
+
   it('refuses a partner every edit, and hides the rows not shared (404)', async () => {
     const draft = await readDraft(lucia, ternId);
     const own = await patchRow(lucia, draft.path, 'sail_side', { version: rowOf(draft, 'sail_side').version, value: 50 }).expect(403);
