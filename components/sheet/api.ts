@@ -2,9 +2,11 @@ import { apiRequest, apiUrl } from '@/components/api/client';
 import {
   revisionDetailSchema,
   revisionParameterSchema,
+  subsystemSchema,
   type CreateParameterBody,
   type RevisionDetail,
   type RevisionParameter,
+  type Subsystem,
   type UpdateParameterBody,
 } from '@/shared/schemas/revisions';
 
@@ -35,6 +37,25 @@ export function updateParameter(craftId: string, revisionId: string, key: string
 /** DELETE .../parameters/:key?version=N: removes a row; 409 in_use while other rows read it. */
 export async function deleteParameter(craftId: string, revisionId: string, key: string, version: number): Promise<void> {
   await apiRequest('DELETE', `${parametersPath(craftId, revisionId)}/${encodeURIComponent(key)}?version=${version}`);
+}
+
+function subsystemsPath(craftId: string): string {
+  return `/api/crafts/${encodeURIComponent(craftId)}/subsystems`;
+}
+
+/** POST /api/crafts/:craftId/subsystems: adds a subsystem (systems and chief engineers); 409 duplicate_name. */
+export function createSubsystem(craftId: string, name: string): Promise<Subsystem> {
+  return apiRequest('POST', subsystemsPath(craftId), { body: { name }, schema: subsystemSchema });
+}
+
+/** PATCH /api/crafts/:craftId/subsystems/:subsystemId: renames a subsystem; its rows and owners stay with it. */
+export function renameSubsystem(craftId: string, subsystemId: string, name: string): Promise<Subsystem> {
+  return apiRequest('PATCH', `${subsystemsPath(craftId)}/${encodeURIComponent(subsystemId)}`, { body: { name }, schema: subsystemSchema });
+}
+
+/** DELETE /api/crafts/:craftId/subsystems/:subsystemId: removes an empty subsystem; 409 in_use (details.keys) while rows are in it. */
+export async function deleteSubsystem(craftId: string, subsystemId: string): Promise<void> {
+  await apiRequest('DELETE', `${subsystemsPath(craftId)}/${encodeURIComponent(subsystemId)}`);
 }
 
 /** The address of GET /api/crafts/:craftId/events, the server-sent stream of changes to the craft's sheets. */

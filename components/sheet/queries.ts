@@ -7,7 +7,16 @@ import {
   type RevisionParameter,
   type UpdateParameterBody,
 } from '@/shared/schemas/revisions';
-import { createParameter, deleteParameter, getRevision, sheetEventsUrl, updateParameter } from './api';
+import {
+  createParameter,
+  createSubsystem,
+  deleteParameter,
+  deleteSubsystem,
+  getRevision,
+  renameSubsystem,
+  sheetEventsUrl,
+  updateParameter,
+} from './api';
 import { applyCreate, applyDelete, applyUpdate, replaceRow, restoreRows } from './revision-cache';
 
 /** Query keys for craft sheets, general to specific. */
@@ -104,6 +113,24 @@ export function useDeleteParameter(craftId: string, revisionId: string) {
     (detail, row) => applyDelete(detail, row.key),
     (row) => [row.key],
   );
+}
+
+/** A change to the craft's subsystems: add one (no id), rename one, or delete one (no name). */
+export type SubsystemChange = { id?: string; name?: string };
+
+/**
+ * Adds, renames or deletes a subsystem of the craft. Subsystems are the craft's, not a revision's: every
+ * cached revision of the craft is refetched afterwards (row groups and owners follow the change).
+ */
+export function useChangeSubsystem(craftId: string) {
+  const queryClient = useQueryClient();
+  return useMutation<unknown, Error, SubsystemChange>({
+    mutationFn: ({ id, name }) => {
+      if (id === undefined) return createSubsystem(craftId, name ?? '');
+      return name === undefined ? deleteSubsystem(craftId, id) : renameSubsystem(craftId, id, name);
+    },
+    onSettled: () => queryClient.invalidateQueries({ queryKey: sheetKeys.craft(craftId) }),
+  });
 }
 
 /** How the screen hears of others' edits: the events stream, a connection being made, or polling. */

@@ -25,6 +25,7 @@ import { groupRows, maturitiesOf, maturityLabeller, rowAccess, sheetReadOnlyReas
 import { SheetTable } from './sheet-table';
 import { SheetSizing } from './sizing/sheet-sizing';
 import { SheetSummary } from './summary/sheet-summary';
+import { SubsystemsPanel } from './subsystems-panel';
 import { useSheetEditor } from './use-sheet-editor';
 
 type SheetView = 'rows' | 'budget' | 'plots' | 'sizing';
@@ -51,6 +52,12 @@ function useStableGroups(detail: RevisionDetail): SheetGroup[] {
   }, [detail]);
   // eslint-disable-next-line react-hooks/exhaustive-deps -- the signature stands for the groups
   return useMemo(() => groups, [signature]);
+}
+
+function rowCountsBySubsystem(detail: RevisionDetail): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const row of detail.sheet.parameters) counts.set(row.subsystemId, (counts.get(row.subsystemId) ?? 0) + 1);
+  return counts;
 }
 
 /** Headline figures computed on the server, for partners who see only the rows shared with them. */
@@ -90,6 +97,7 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
   const [view, setView] = useState<SheetView>('rows');
   const [openKey, setOpenKey] = useState<string>();
   const [adding, setAdding] = useState(false);
+  const [managingSubsystems, setManagingSubsystems] = useState(false);
 
   const who = useMemo(() => whoOn(detail, craft.myRole, isOrgAdmin), [detail, craft.myRole, isOrgAdmin]);
   const access = useMemo(() => rowAccess(detail, who), [detail, who]);
@@ -112,6 +120,9 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
       <Button label="Undo" tone="secondary" disabled={!editor.canUndo} onPress={editor.undo} testID="sheet-undo" />
       <Button label="Redo" tone="secondary" disabled={!editor.canRedo} onPress={editor.redo} testID="sheet-redo" />
       {canManage ? <Button label="Add row" onPress={() => setAdding(true)} testID="sheet-add-row" /> : null}
+      {detail.abilities.manageSubsystems ? (
+        <Button label="Subsystems" tone="secondary" onPress={() => setManagingSubsystems(true)} testID="sheet-subsystems" />
+      ) : null}
       <View style={styles.grow} />
       <LiveStatusBadge status={liveStatus} />
     </View>
@@ -183,6 +194,14 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
           maturities={maturities}
           withValue={!wide}
           onClose={() => setOpenKey(undefined)}
+        />
+      ) : null}
+      {managingSubsystems ? (
+        <SubsystemsPanel
+          craftId={craft.id}
+          subsystems={detail.subsystems}
+          rowCounts={rowCountsBySubsystem(detail)}
+          onClose={() => setManagingSubsystems(false)}
         />
       ) : null}
       {adding ? (

@@ -42,7 +42,8 @@ export type ValueInputProps = {
 
 /**
  * The editable value or formula of a row: every keystroke goes to the live engine, Enter (or leaving the
- * field) saves, Escape goes back to the saved definition; arrow up and down move to the neighbouring rows.
+ * field) saves, Escape goes back to the saved definition; in the table, Enter then moves to the next row
+ * and arrow up and down move to the neighbouring rows (left and right move within the text being edited).
  */
 export function ValueInput({ parameter, computed, invalid, actions, navigation, compact = false }: ValueInputProps) {
   const { key } = parameter;
@@ -79,7 +80,12 @@ export function ValueInput({ parameter, computed, invalid, actions, navigation, 
       ref={(input) => navigation?.register(key, input)}
       value={draft ?? source}
       onChangeText={type}
-      onSubmitEditing={() => finish(true)}
+      onSubmitEditing={() => {
+        finish(true);
+        // In the table, Enter saves and goes on to the next row, as down the column of a ledger.
+        navigation?.move(key, 1);
+      }}
+      blurOnSubmit={navigation === undefined}
       onBlur={() => finish(true)}
       onKeyPress={onKeyPress}
       placeholder={parameter.material === undefined ? undefined : `${parameter.material.id} · ${parameter.material.property}`}

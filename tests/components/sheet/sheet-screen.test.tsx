@@ -172,6 +172,16 @@ describe('SheetScreen on a wide screen', () => {
     expect(requests(fetchMock, 'PATCH', `${revisionPath}/parameters/boom_count`)).toEqual([]);
   });
 
+  it('saves on Enter and goes on to the next row', async () => {
+    const { fetchMock } = renderSheet({ routes: { [`PATCH ${revisionPath}/parameters/boom_count`]: 'pending' } });
+    await screen.findByTestId('sheet-input-boom_count');
+    input('boom_count').focus();
+    type('boom_count', '6');
+    fireEvent.keyDown(input('boom_count'), { key: 'Enter', code: 'Enter', keyCode: 13 });
+    await waitFor(() => expect(requests(fetchMock, 'PATCH', `${revisionPath}/parameters/boom_count`)).toEqual([{ value: 6, version: 1 }]));
+    expect(document.activeElement).toBe(input('boom_linear_density'));
+  });
+
   it('folds a subsystem’s rows away and back', async () => {
     renderSheet();
     await screen.findByTestId('sheet-row-boom_count');
