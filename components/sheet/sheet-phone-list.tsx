@@ -5,17 +5,24 @@ import { AppText } from '@/components/ui/text';
 import { colors, fonts, fontSizes, radii, space, touchTarget } from '@/components/ui/theme';
 import { computedText, RowNotices, statusText } from './row-feedback';
 import { bindRow, type RowBinding, type SheetRowsProps } from './row-binding';
+import { groupReadOnlyReason } from './sheet-rows';
 
 export type SheetPhoneListProps = SheetRowsProps & {
   /** The row whose edit sheet is open: its notices show there instead. */
   openKey: string | undefined;
 };
 
-type ItemProps = RowBinding & { open: boolean; onOpenRow: (key: string) => void };
+type ItemProps = RowBinding & {
+  /** The read-only reason said once under the group's heading; the row repeats only a reason of its own. */
+  groupReason: string | undefined;
+  open: boolean;
+  onOpenRow: (key: string) => void;
+};
 
-const PhoneRow = memo(function PhoneRow({ rowKey, rows, actions, access, message, conflict, open, onOpenRow }: ItemProps) {
+const PhoneRow = memo(function PhoneRow({ rowKey, rows, actions, access, message, conflict, groupReason, open, onOpenRow }: ItemProps) {
   const live = useLiveRow(rows, rowKey);
   if (live.parameter === undefined) return null;
+  const readOnlyReason = access?.readOnlyReason === groupReason ? undefined : access?.readOnlyReason;
   const status = statusText(live);
   return (
     <View style={styles.item} testID={`sheet-row-${rowKey}`}>
@@ -37,30 +44,36 @@ const PhoneRow = memo(function PhoneRow({ rowKey, rows, actions, access, message
           </AppText>
         </View>
       </Pressable>
-      {open ? null : (
-        <RowNotices rowKey={rowKey} message={message} readOnlyReason={access?.readOnlyReason} conflict={conflict} actions={actions} />
-      )}
+      {open ? null : <RowNotices rowKey={rowKey} message={message} readOnlyReason={readOnlyReason} conflict={conflict} actions={actions} />}
     </View>
   );
 });
 
 /** The sheet on a phone: rows by subsystem as a list; a tap opens the row's edit sheet. */
 export const SheetPhoneList = memo(function SheetPhoneList(props: SheetPhoneListProps) {
-  const { groups, openKey, onOpenRow } = props;
+  const { groups, access, openKey, onOpenRow } = props;
   return (
     <View style={styles.list}>
-      {groups.map((group) => (
-        <View key={group.subsystem} style={styles.group}>
-          <AppText variant="label" role="heading" aria-level={3}>
-            {group.subsystem}
-          </AppText>
-          <View style={styles.card}>
-            {group.keys.map((key) => (
-              <PhoneRow key={key} {...bindRow(props, key)} open={openKey === key} onOpenRow={onOpenRow} />
-            ))}
+      {groups.map((group) => {
+        const groupReason = groupReadOnlyReason(group, access);
+        return (
+          <View key={group.subsystem} style={styles.group}>
+            <AppText variant="label" role="heading" aria-level={3}>
+              {group.subsystem}
+            </AppText>
+            {groupReason !== undefined ? (
+              <AppText variant="muted" style={styles.status} testID={`sheet-group-reason-${group.subsystem}`}>
+                Read-only: {groupReason}.
+              </AppText>
+            ) : null}
+            <View style={styles.card}>
+              {group.keys.map((key) => (
+                <PhoneRow key={key} {...bindRow(props, key)} groupReason={groupReason} open={openKey === key} onOpenRow={onOpenRow} />
+              ))}
+            </View>
           </View>
-        </View>
-      ))}
+        );
+      })}
     </View>
   );
 });

@@ -50,6 +50,16 @@ export function rowAccess(detail: RevisionDetail, who: Who): Record<string, RowA
   return access;
 }
 
+/**
+ * The reason every row of a group is read-only for the person, when it is the same for all of them (a
+ * subsystem they do not own, protected constants): the screen says it once, at the group.
+ */
+export function groupReadOnlyReason(group: SheetGroup, access: Readonly<Record<string, RowAccess>>): string | undefined {
+  const reasons = new Set(group.keys.map((key) => access[key]?.readOnlyReason));
+  const [reason] = reasons;
+  return reasons.size === 1 ? reason : undefined;
+}
+
 /** Why nothing in the revision can be edited by the person, or undefined when something can. */
 export function sheetReadOnlyReason(detail: RevisionDetail, who: Who): string | undefined {
   const first = detail.sheet.parameters[0];

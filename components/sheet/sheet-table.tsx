@@ -6,6 +6,7 @@ import { AppText } from '@/components/ui/text';
 import { colors, fonts, fontSizes, radii, space } from '@/components/ui/theme';
 import { computedText, RowNotices, statusText } from './row-feedback';
 import { bindRow, type RowBinding, type SheetRowsProps } from './row-binding';
+import { groupReadOnlyReason } from './sheet-rows';
 import { definitionText, ValueInput, type CellNavigation } from './value-input';
 
 export type SheetTableProps = SheetRowsProps & {
@@ -13,21 +14,22 @@ export type SheetTableProps = SheetRowsProps & {
   maturityLabel: (maturity: string) => string;
 };
 
+// The subsystem is the group a row sits in, and the key is read under the label: the table fits beside the summary.
 const columns = [
-  { title: 'Parameter', style: { flex: 2.2, minWidth: 140 } },
-  { title: 'Key', style: { flex: 1.4, minWidth: 110 } },
-  { title: 'Value or formula', style: { flex: 2.2, minWidth: 150 } },
-  { title: 'Unit', style: { width: 84 } },
-  { title: 'Computed', style: { flex: 1.3, minWidth: 110 }, right: true },
-  { title: 'Subsystem', style: { flex: 1.2, minWidth: 100 } },
-  { title: 'Maturity', style: { flex: 1.1, minWidth: 90 } },
-  { title: 'Status', style: { flex: 1.8, minWidth: 120 } },
-  { title: '', style: { width: 64 } },
+  { title: 'Parameter and key', style: { flex: 2.4, minWidth: 140 } },
+  { title: 'Value or formula', style: { flex: 2, minWidth: 110 } },
+  { title: 'Unit', style: { width: 64 } },
+  { title: 'Computed', style: { flex: 1.3, minWidth: 90 }, right: true },
+  { title: 'Maturity', style: { flex: 1, minWidth: 70 } },
+  { title: 'Status', style: { flex: 1.4, minWidth: 70 } },
+  { title: 'Row', style: { width: 48 } },
 ] as const;
 
 const cell = (index: number) => columns[index]?.style;
 
 type RowProps = RowBinding & {
+  /** The read-only reason said once at the row's group; the row repeats only a reason of its own. */
+  groupReason: string | undefined;
   maturityLabel: (maturity: string) => string;
   navigation: CellNavigation;
   onOpenRow: (key: string) => void;
@@ -41,6 +43,7 @@ const SheetTableRow = memo(function SheetTableRow({
   access,
   message,
   conflict,
+  groupReason,
   maturityLabel,
   navigation,
   onOpenRow,
@@ -48,18 +51,21 @@ const SheetTableRow = memo(function SheetTableRow({
   const live = useLiveRow(rows, rowKey);
   const { parameter } = live;
   if (parameter === undefined) return null;
+  const readOnlyReason = access?.readOnlyReason === groupReason ? undefined : access?.readOnlyReason;
   const status = statusText(live);
   const editable = access?.editable === true && parameter.protected !== true;
   return (
     <View style={styles.row} testID={`sheet-row-${rowKey}`}>
       <View style={styles.cells} role="row">
-        <AppText style={[styles.cellText, styles.label, cell(0)]} numberOfLines={2} role="cell">
-          {parameter.label}
-        </AppText>
-        <AppText style={[styles.mono, styles.faint, cell(1)]} numberOfLines={1} role="cell">
-          {rowKey}
-        </AppText>
-        <View style={cell(2)} role="cell">
+        <View style={cell(0)} role="cell">
+          <AppText style={[styles.cellText, styles.label]} numberOfLines={2}>
+            {parameter.label}
+          </AppText>
+          <AppText style={[styles.mono, styles.faint]} numberOfLines={1}>
+            {rowKey}
+          </AppText>
+        </View>
+        <View style={cell(1)} role="cell">
           {editable ? (
             <ValueInput
               parameter={parameter}
@@ -75,27 +81,24 @@ const SheetTableRow = memo(function SheetTableRow({
             </AppText>
           )}
         </View>
-        <AppText style={[styles.mono, cell(3)]} role="cell">
+        <AppText style={[styles.mono, cell(2)]} role="cell">
           {formatUnit(parameter.unit)}
         </AppText>
-        <AppText style={[styles.mono, styles.number, cell(4)]} testID={`sheet-value-${rowKey}`} role="cell">
+        <AppText style={[styles.mono, styles.number, cell(3)]} testID={`sheet-value-${rowKey}`} role="cell">
           {computedText(live)}
         </AppText>
-        <AppText style={[styles.cellText, styles.small, cell(5)]} numberOfLines={1} role="cell">
-          {parameter.subsystem}
-        </AppText>
-        <AppText style={[styles.cellText, styles.small, cell(6)]} numberOfLines={1} role="cell">
+        <AppText style={[styles.cellText, styles.small, cell(4)]} numberOfLines={1} role="cell">
           {parameter.mass === undefined ? '' : maturityLabel(parameter.mass.maturity)}
         </AppText>
         <AppText
-          style={[styles.small, status.ok ? styles.ok : styles.problem, cell(7)]}
+          style={[styles.small, status.ok ? styles.ok : styles.problem, cell(5)]}
           numberOfLines={3}
           testID={`sheet-status-${rowKey}`}
           role="cell"
         >
           {status.text}
         </AppText>
-        <View style={cell(8)} role="cell">
+        <View style={cell(6)} role="cell">
           {access?.editable === true || access?.manage === true ? (
             <Pressable
               role="button"
@@ -109,11 +112,11 @@ const SheetTableRow = memo(function SheetTableRow({
           ) : null}
         </View>
       </View>
-      {message !== undefined || access?.readOnlyReason !== undefined || conflict !== undefined ? (
+      {message !== undefined || readOnlyReason !== undefined || conflict !== undefined ? (
         // What is said under the row is a table row of its own, one cell wide, so the table stays a table to assistive technology.
         <View role="row">
           <View role="cell">
-            <RowNotices rowKey={rowKey} message={message} readOnlyReason={access?.readOnlyReason} conflict={conflict} actions={actions} />
+            <RowNotices rowKey={rowKey} message={message} readOnlyReason={readOnlyReason} conflict={conflict} actions={actions} />
           </View>
         </View>
       ) : null}
@@ -126,7 +129,7 @@ const SheetTableRow = memo(function SheetTableRow({
  * stays in view. Arrow keys move between the value fields of neighbouring rows, Tab between cells.
  */
 export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
-  const { groups, maturityLabel, onOpenRow } = props;
+  const { groups, access, maturityLabel, onOpenRow } = props;
   const [collapsed, setCollapsed] = useState<ReadonlySet<string>>(new Set());
   const inputs = useRef(new Map<string, TextInput>());
   const order = useRef<string[]>([]);
@@ -172,6 +175,7 @@ export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
       </View>
       {groups.map((group) => {
         const open = !collapsed.has(group.subsystem);
+        const groupReason = groupReadOnlyReason(group, access);
         return (
           <View key={group.subsystem} role="rowgroup">
             <View role="row">
@@ -189,6 +193,16 @@ export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
                   <AppText variant="muted" style={styles.small}>
                     {group.keys.length} {group.keys.length === 1 ? 'row' : 'rows'}
                   </AppText>
+                  {groupReason !== undefined ? (
+                    <AppText
+                      variant="muted"
+                      style={[styles.small, styles.groupReason]}
+                      numberOfLines={2}
+                      testID={`sheet-group-reason-${group.subsystem}`}
+                    >
+                      Read-only: {groupReason}.
+                    </AppText>
+                  ) : null}
                 </Pressable>
               </View>
             </View>
@@ -197,6 +211,7 @@ export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
                   <SheetTableRow
                     key={key}
                     {...bindRow(props, key)}
+                    groupReason={groupReason}
                     maturityLabel={maturityLabel}
                     navigation={navigation}
                     onOpenRow={onOpenRow}
@@ -227,6 +242,7 @@ const styles = StyleSheet.create({
     borderBottomColor: colors.border,
   },
   groupTitle: { fontFamily: fonts.semibold },
+  groupReason: { flex: 1, textAlign: 'right' },
   cellText: { fontSize: fontSizes.small, lineHeight: 18 },
   label: { fontFamily: fonts.medium },
   mono: { fontFamily: fonts.mono, fontSize: fontSizes.small, lineHeight: 18, color: colors.ink },

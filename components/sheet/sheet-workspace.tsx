@@ -117,8 +117,12 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
 
   const toolbar = (
     <View style={styles.toolbar}>
-      <Button label="Undo" tone="secondary" disabled={!editor.canUndo} onPress={editor.undo} testID="sheet-undo" />
-      <Button label="Redo" tone="secondary" disabled={!editor.canRedo} onPress={editor.redo} testID="sheet-redo" />
+      {canEdit ? (
+        <>
+          <Button label="Undo" tone="secondary" disabled={!editor.canUndo} onPress={editor.undo} testID="sheet-undo" />
+          <Button label="Redo" tone="secondary" disabled={!editor.canRedo} onPress={editor.redo} testID="sheet-redo" />
+        </>
+      ) : null}
       {canManage ? <Button label="Add row" onPress={() => setAdding(true)} testID="sheet-add-row" /> : null}
       {detail.abilities.manageSubsystems ? (
         <Button label="Subsystems" tone="secondary" onPress={() => setManagingSubsystems(true)} testID="sheet-subsystems" />
@@ -161,7 +165,8 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
           Read-only: {readOnly}.
         </AppText>
       ) : null}
-      <SizingCaution testID="sheet-caution" />
+      {/* The summary and the headline figures carry the caution, but for a phone's sticky summary, kept to the figures. */}
+      {!wide && wholeSheet ? <SizingCaution testID="sheet-caution" /> : null}
       {wholeSheet ? <ChoiceChips label="Show" choices={views} value={view} onChange={setView} testID="sheet-views" /> : null}
     </View>
   );
@@ -181,7 +186,8 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
           </ScrollView>
         </View>
       ) : (
-        <ScrollView stickyHeaderIndices={[0]} contentContainerStyle={styles.phone}>
+        // The summary stays in view on a phone; a partner's longer list of headline figures scrolls with the rows.
+        <ScrollView stickyHeaderIndices={wholeSheet ? [0] : []} contentContainerStyle={styles.phone}>
           <View style={styles.sticky}>{side}</View>
           {header}
           {panel}
@@ -215,7 +221,7 @@ const styles = StyleSheet.create({
   root: { flex: 1 },
   columns: { flex: 1, flexDirection: 'row', gap: space.lg, padding: space.lg },
   main: { flex: 1, minWidth: 0, gap: space.md },
-  side: { width: 340, flexGrow: 0 },
+  side: { width: 300, flexGrow: 0 },
   scrolled: { gap: space.lg, paddingBottom: space.xl },
   phone: { gap: space.md, padding: space.md, paddingBottom: space.xxl },
   sticky: { backgroundColor: colors.background, paddingBottom: space.sm },

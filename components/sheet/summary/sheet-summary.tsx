@@ -71,7 +71,8 @@ export function SheetSummary({ snapshot }: { snapshot: SheetSnapshot }) {
       ) : (
         <View style={styles.grid}>{items}</View>
       )}
-      <SizingCaution testID="sheet-summary-caution" />
+      {/* A phone keeps the sticky card to the figures: the screen shows the caution under it. */}
+      {compact ? null : <SizingCaution testID="sheet-summary-caution" />}
     </Card>
   );
 }

@@ -1,6 +1,6 @@
 import { fireEvent, screen, waitFor } from '@testing-library/dom';
 import { act } from 'react';
-import { detailFor, renderSheet, revisionPath, requests, setWindowWidth } from './sheet-fixtures';
+import { detailFor, renderSheet, revisionPath, requests, setWindowWidth, subsystemId } from './sheet-fixtures';
 
 const patchSailSide = `PATCH ${revisionPath}/parameters/sail_side`;
 
@@ -130,7 +130,7 @@ describe('SheetScreen on a wide screen', () => {
     renderSheet();
     await screen.findByTestId('sheet-input-sail_side');
     expect(screen.getByTestId('sheet-summary')).toBeTruthy();
-    expect(screen.getByTestId('sheet-caution').textContent).toContain('Preliminary sizing estimates');
+    expect(screen.getByTestId('sheet-summary-caution').textContent).toContain('Preliminary sizing estimates');
     fireEvent.click(screen.getByRole('radio', { name: 'Mass budget' }));
     expect(await screen.findByTestId('mass-budget-view')).toBeTruthy();
     expect(screen.queryByTestId('sheet-table')).toBeNull();
@@ -145,8 +145,11 @@ describe('SheetScreen on a wide screen', () => {
     });
     await screen.findByTestId('sheet-input-boom_linear_density');
     expect(screen.queryByTestId('sheet-input-sail_side')).toBeNull();
-    expect(text('sheet-row-message-sail_side')).toContain('Sail membrane');
-    expect(text('sheet-row-message-sail_side')).toContain('edited by their owner or an engineer');
+    // Said once for the group, not under each of its rows.
+    expect(text('sheet-group-reason-Sail membrane')).toContain('Sail membrane');
+    expect(text('sheet-group-reason-Sail membrane')).toContain('edited by their owner or an engineer');
+    expect(screen.queryByTestId('sheet-row-message-sail_side')).toBeNull();
+    expect(screen.queryByTestId('sheet-group-reason-Booms')).toBeNull();
     expect(screen.queryByTestId('sheet-row-message-boom_linear_density')).toBeNull();
     expect(screen.queryByTestId('sheet-add-row')).toBeNull();
   });
@@ -229,5 +232,23 @@ describe('SheetScreen on a phone', () => {
     expect(text('sheet-value-sail_area')).toBe('2500 m²');
     fireEvent.click(screen.getByTestId('sheet-row-editor-close'));
     await waitFor(() => expect(screen.queryByTestId('sheet-row-editor')).toBeNull());
+  });
+
+  it('keeps the sticky summary to the figures and shows the caution once, under it', async () => {
+    renderSheet();
+    await screen.findByTestId('sheet-summary');
+    expect(screen.queryByTestId('sheet-summary-caution')).toBeNull();
+    expect(screen.getAllByText(/Preliminary sizing estimates/)).toHaveLength(1);
+    expect(text('sheet-caution')).toContain('Preliminary sizing estimates');
+  });
+
+  it('tells a subsystem owner once per group why its rows are read-only, and again in the row’s edit sheet', async () => {
+    const detail = detailFor({ editableSubsystemIds: [subsystemId('Booms')], manageRows: false, manageSubsystems: false });
+    renderSheet({ role: 'subsystem_owner', detail });
+    expect((await screen.findByTestId('sheet-group-reason-Sail membrane')).textContent).toContain('edited by their owner or an engineer');
+    expect(screen.queryByTestId('sheet-row-message-sail_side')).toBeNull();
+    fireEvent.click(screen.getByTestId('sheet-row-sail_side').querySelector('[role="button"]') as HTMLElement);
+    await screen.findByTestId('sheet-row-editor');
+    expect(text('sheet-row-message-sail_side')).toContain('Sail membrane');
   });
 });

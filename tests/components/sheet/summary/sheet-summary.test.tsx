@@ -5,6 +5,7 @@ import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
 import { sheetRoles, standardHeadline } from '@/shared/templates';
 import { setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';
+import { setWindowWidth } from '../sheet-fixtures';
 import { snapshotOf, templateWith } from '../../helpers/template-snapshot';
 
 function renderSummary(inputs: Record<string, number> = {}) {
@@ -23,6 +24,9 @@ function figure(role: string): HTMLElement {
 }
 
 describe('SheetSummary', () => {
+  // Wide: the card carries the caution (a phone's sticky card leaves it to the screen).
+  beforeEach(() => setWindowWidth(1280));
+
   it('shows every headline figure of the template with the engine’s value, and the caution', () => {
     const snapshot = renderSummary();
     const keys = sheetRoles(snapshot.sheet);
