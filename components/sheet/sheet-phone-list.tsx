@@ -62,7 +62,7 @@ export const SheetPhoneList = memo(function SheetPhoneList(props: SheetPhoneList
               {group.subsystem}
             </AppText>
             {groupReason !== undefined ? (
-              <AppText variant="muted" style={styles.status} testID={`sheet-group-reason-${group.subsystem}`}>
+              <AppText variant="muted" style={styles.groupReason} testID={`sheet-group-reason-${group.subsystem}`}>
                 Read-only: {groupReason}.
               </AppText>
             ) : null}
@@ -81,6 +81,7 @@ export const SheetPhoneList = memo(function SheetPhoneList(props: SheetPhoneList
 const styles = StyleSheet.create({
   list: { gap: space.lg },
   group: { gap: space.xs },
+  groupReason: { fontSize: fontSizes.small, lineHeight: 18 },
   card: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radii.md },
   item: {
     borderBottomWidth: StyleSheet.hairlineWidth,

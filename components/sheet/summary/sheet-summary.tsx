@@ -82,7 +82,7 @@ const styles = StyleSheet.create({
   flaggedCard: { borderColor: colors.danger },
   grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.sm },
   row: { columnGap: space.lg },
-  figure: { flexGrow: 1, flexBasis: 140, minWidth: 130, gap: 2 },
+  figure: { flexGrow: 1, flexBasis: 110, minWidth: 110, gap: 2 },
   compactFigure: { flexGrow: 0, flexBasis: 'auto' },
   flaggedFigure: { borderLeftWidth: 3, borderLeftColor: colors.danger, paddingLeft: space.sm, backgroundColor: colors.dangerSoft },
   value: { fontFamily: fonts.monoMedium, fontSize: 17, lineHeight: 24, color: colors.ink, fontVariant: ['tabular-nums'] },
