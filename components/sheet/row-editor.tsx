@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
-import { formatUnit } from '@/components/sizing/format';
+import { formatUnit } from '@/shared/format/quantity';
 import { useLiveRow } from '@/components/sizing/use-sheet-session';
 import { Button } from '@/components/ui/button';
 import { ChoiceChips } from '@/components/ui/choice-chips';

@@ -1,5 +1,5 @@
 import { StyleSheet, View } from 'react-native';
-import { formatQuantity } from '@/components/sizing/format';
+import { formatQuantity } from '@/shared/format/quantity';
 import type { LiveRow } from '@/components/sizing/use-sheet-session';
 import { Button } from '@/components/ui/button';
 import { AppText } from '@/components/ui/text';

@@ -1,6 +1,6 @@
 import { memo, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Pressable, ScrollView, StyleSheet, View, type TextInput } from 'react-native';
-import { formatUnit } from '@/components/sizing/format';
+import { formatUnit } from '@/shared/format/quantity';
 import { useLiveRow } from '@/components/sizing/use-sheet-session';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, fontSizes, radii, space } from '@/components/ui/theme';

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import { ScrollView, StyleSheet, useWindowDimensions, View } from 'react-native';
-import { formatQuantity } from '@/components/sizing/format';
+import { formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import { useFollowingSheetSession } from '@/components/sizing/use-sheet-session';
 import { Button } from '@/components/ui/button';

@@ -1,6 +1,6 @@
 import { useRef, useState } from 'react';
 import { StyleSheet, TextInput, type NativeSyntheticEvent, type TextInputKeyPressEventData } from 'react-native';
-import { editText, formatUnit } from '@/components/sizing/format';
+import { editText, formatUnit } from '@/shared/format/quantity';
 import { colors, fonts, fontSizes, radii, space } from '@/components/ui/theme';
 import type { Parameter } from '@/shared/schemas/sheet';
 import type { SheetActions } from './use-sheet-editor';

@@ -6,7 +6,7 @@ import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
 import { headlineFigures } from '@/shared/analyses';
 import { findPreset } from '@/shared/budget';
-import { formatNumber, formatQuantity } from './format';
+import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { evaluationOf } from './analyses/sheet-values';
 import { SizingCaution } from './sizing-caution';
 import type { SheetSnapshot } from './use-sheet-session';

@@ -5,7 +5,7 @@ import { AppText } from '@/components/ui/text';
 import { colors, fonts, fontSizes, radii, space, touchTarget } from '@/components/ui/theme';
 import type { EngineError, EvaluatedValue } from '@/shared/engine';
 import type { Parameter } from '@/shared/schemas/sheet';
-import { editText, formatQuantity, formatUnit } from './format';
+import { editText, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import type { Rejection } from './use-sheet-session';
 
 // Constants are read for their exact digits; results only to the precision a sizing estimate has.

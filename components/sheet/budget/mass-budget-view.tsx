@@ -6,7 +6,7 @@ import { DividedList } from '@/components/ui/divided-list';
 import { MarginBar } from '@/components/ui/margin-bar';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
-import { formatNumber, formatQuantity } from '@/components/sizing/format';
+import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
 import { findRoleRows, roleValuesSI } from '@/shared/analyses';

@@ -4,7 +4,7 @@ import { ChoiceChips } from '@/components/ui/choice-chips';
 import { LineChart } from '@/components/ui/line-chart';
 import { AppText } from '@/components/ui/text';
 import { colors, space } from '@/components/ui/theme';
-import { formatQuantity } from '@/components/sizing/format';
+import { formatQuantity } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems } from '@/components/sizing/analyses/analysis-card';
 import { FilmThicknessAnalysis } from '@/components/sizing/analyses/film-thickness-trade';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';

@@ -8,7 +8,7 @@ import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
 import { Toggle } from '@/components/ui/toggle';
 import { colors, radii, space } from '@/components/ui/theme';
-import { editText, formatNumber, formatQuantity, formatUnit } from '@/components/sizing/format';
+import { editText, formatNumber, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import { AnalysisProblems } from '@/components/sizing/analyses/analysis-card';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';

@@ -4,7 +4,7 @@ import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, sideNavBreakpoint, space } from '@/components/ui/theme';
-import { formatNumber, formatQuantity } from '@/components/sizing/format';
+import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
 import { headlineFigures, type HeadlineFigure } from '@/shared/analyses';

@@ -1,4 +1,4 @@
-import { formatNumber, formatUnit } from '../format';
+import { formatNumber, formatUnit } from '@/shared/format/quantity';
 import { colors } from '@/components/ui/theme';
 
 /** An axis title with its unit: "Cone angle (°)"; a pure number has none. */

@@ -5,7 +5,7 @@ import { coneAngleSeries, type RoleSeries } from '@/shared/analyses';
 import { IDEAL_BEST_TRANSVERSE_CONE_ANGLE } from '@/shared/sail';
 import type { Sheet } from '@/shared/schemas/sheet';
 import type { RowRole } from '@/shared/templates';
-import { formatNumber, formatQuantity, formatUnit } from '../format';
+import { formatNumber, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
 import { LineChart } from '@/components/ui/line-chart';
 import { degrees } from './sheet-values';

@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import { LineChart } from '@/components/ui/line-chart';
 import { filmThicknessTrade } from '@/shared/analyses';
 import type { Sheet } from '@/shared/schemas/sheet';
-import { formatQuantity } from '../format';
+import { formatQuantity } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems } from './analysis-card';
 import { axisTitle, chartNumber, lineColor } from './chart-text';
 

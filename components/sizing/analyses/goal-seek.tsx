@@ -9,7 +9,7 @@ import { sizeToTarget, sizingChoices } from '@/shared/analyses';
 import type { AnalysisResult, GoalSeekResult } from '@/shared/engine';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { rowRoleDefinitions, sheetRoles, type RowRole } from '@/shared/templates';
-import { editText, formatQuantity, formatUnit } from '../format';
+import { editText, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems } from './analysis-card';
 
 /** The outputs a sizing review solves for, by role, when the sheet has them. */

@@ -12,7 +12,7 @@ import {
   logSpiralTransfer,
 } from '@/shared/sail';
 import { sheetRoles } from '@/shared/templates';
-import { formatNumber, formatQuantity } from '../format';
+import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import type { SheetSnapshot } from '../use-sheet-session';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
 import { degrees, evaluationOf, messageOf, radians } from './sheet-values';

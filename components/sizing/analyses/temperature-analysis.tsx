@@ -9,7 +9,7 @@ import { sheetFilmLimitK, temperatureVersusDistance } from '@/shared/analyses';
 import { valueInRowUnit } from '@/shared/engine';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { sheetRoles } from '@/shared/templates';
-import { formatNumber, formatQuantity, formatUnit } from '../format';
+import { formatNumber, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems, ResultFigure } from './analysis-card';
 import { LineChart } from '@/components/ui/line-chart';
 

@@ -1,6 +1,6 @@
 import { screen, within } from '@testing-library/dom';
 import { MassBudgetView } from '@/components/sheet/budget/mass-budget-view';
-import { formatNumber } from '@/components/sizing/format';
+import { formatNumber } from '@/shared/format/quantity';
 import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
 import { setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';

@@ -1,6 +1,6 @@
 import { screen, within } from '@testing-library/dom';
 import { SheetSummary } from '@/components/sheet/summary/sheet-summary';
-import { formatQuantity } from '@/components/sizing/format';
+import { formatQuantity } from '@/shared/format/quantity';
 import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
 import { sheetRoles, standardHeadline } from '@/shared/templates';
 import { setupQueryClient } from '../../helpers/api';

@@ -1,6 +1,6 @@
 import { fireEvent, screen, within } from '@testing-library/dom';
 import { SizingWorkspace } from '@/components/sizing/sizing-workspace';
-import { formatQuantity } from '@/components/sizing/format';
+import { formatQuantity } from '@/shared/format/quantity';
 import { evaluateSheet } from '@/shared/engine';
 import {
   ASTRONOMICAL_UNIT,

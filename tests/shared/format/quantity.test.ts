@@ -1,4 +1,4 @@
-import { editText, formatNumber, formatQuantity, formatUnit } from '@/components/sizing/format';
+import { editText, formatNumber, formatQuantity, formatUnit } from '@/shared/format/quantity';
 
 describe('formatNumber', () => {
   it('rounds to significant digits without float noise', () => {

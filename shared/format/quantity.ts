@@ -1,5 +1,5 @@
 /**
- * Number and unit text for the sizing screens: a few significant digits for results, no float
+ * Number and unit text for screens, the server and documents: a few significant digits for results, no float
  * noise, and units written the way engineers read them (m², µm, %).
  */
 
@@ -25,6 +25,18 @@ function superscript(digits: string): string {
 const fixedBelow = 1e6;
 const fixedFrom = 1e-3;
 
+// Building a number format costs far more than using one, and every value on screen is formatted.
+const fixedFormats = new Map<number, Intl.NumberFormat>();
+
+function fixedFormat(significant: number): Intl.NumberFormat {
+  let format = fixedFormats.get(significant);
+  if (format === undefined) {
+    format = new Intl.NumberFormat('en-US', { maximumSignificantDigits: significant, useGrouping: false });
+    fixedFormats.set(significant, format);
+  }
+  return format;
+}
+
 /**
  * A number with at most `significant` significant digits: fixed notation between 0.001 and a million,
  * "4.54 × 10⁻⁶" outside it; "−" for negatives; non-finite numbers as "—".
@@ -35,9 +47,7 @@ export function formatNumber(value: number, significant = 4): string {
   const magnitude = Math.abs(value);
   if (magnitude === 0) return '0';
   const rounded = Number(magnitude.toPrecision(significant));
-  if (rounded >= fixedFrom && rounded < fixedBelow) {
-    return sign + new Intl.NumberFormat('en-US', { maximumSignificantDigits: significant, useGrouping: false }).format(rounded);
-  }
+  if (rounded >= fixedFrom && rounded < fixedBelow) return sign + fixedFormat(significant).format(rounded);
   const [mantissa = '', exponent = ''] = rounded.toExponential(significant - 1).split('e');
   const trimmed = mantissa.includes('.') ? mantissa.replace(/0+$/, '').replace(/\.$/, '') : mantissa;
   return `${sign}${trimmed} × 10${superscript(String(Number(exponent)))}`;
