@@ -1,10 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/text';
 import { colors, fontSizes, radii, space } from '@/components/ui/theme';
-
-/** What every sizing result carries: these are estimates, not design authority. */
-export const SIZING_CAUTION =
-  "Preliminary sizing estimates. Use your project's own margin policy, higher-fidelity analysis and licensed engineering practice for design decisions.";
+import { SIZING_CAUTION } from '@/shared/analyses/caution';
 
 /** The caution shown beside sizing results. */
 export function SizingCaution({ testID }: { testID?: string }) {

@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/dom';
 import { MassBudgetView } from '@/components/sheet/budget/mass-budget-view';
 import { formatNumber } from '@/shared/format/quantity';
-import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
+import { SIZING_CAUTION } from '@/shared/analyses/caution';
 import { setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';
 import { snapshotOf, templateWith } from '../../helpers/template-snapshot';

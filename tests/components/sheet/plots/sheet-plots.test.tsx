@@ -1,6 +1,6 @@
 import { fireEvent, screen, within } from '@testing-library/dom';
 import { SheetPlots } from '@/components/sheet/plots/sheet-plots';
-import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
+import { SIZING_CAUTION } from '@/shared/analyses/caution';
 import { setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';
 import { snapshotOf, templateWith } from '../../helpers/template-snapshot';

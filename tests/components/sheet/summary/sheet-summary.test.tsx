@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/dom';
 import { SheetSummary } from '@/components/sheet/summary/sheet-summary';
 import { formatQuantity } from '@/shared/format/quantity';
-import { SIZING_CAUTION } from '@/components/sizing/sizing-caution';
+import { SIZING_CAUTION } from '@/shared/analyses/caution';
 import { sheetRoles, standardHeadline } from '@/shared/templates';
 import { setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';
