@@ -13,6 +13,7 @@ import { requireUser } from './middleware/require-user';
 import { accountRouter } from './routes/account';
 import { craftsRouter } from './routes/crafts';
 import { openApiDocument } from './openapi';
+import { notificationsRouter } from './routes/notifications';
 import { organisationRouter } from './routes/organisation';
 import { sheetsRouter } from './routes/sheets';
 import { templatesRouter } from './routes/templates';
@@ -73,7 +74,8 @@ export function createApp(deps: AppDeps): Express {
   });
   app.use('/api', unlessBearer(auth.csrfProtection));
   app.use('/api/auth', auth.router);
-  app.use('/api/account', requireUser, accountRouter());
+  app.use('/api/account', requireUser, accountRouter(deps));
+  app.use('/api/notifications', requireUser, notificationsRouter(deps));
   app.use('/api/templates', requireUser, templatesRouter());
   app.use('/api/crafts', requireUser, craftsRouter(deps), sheetsRouter(deps));
   app.use('/api/organisation', requireUser, organisationRouter(deps));

@@ -3,6 +3,7 @@ import { createDatabase } from './db';
 import { loadConfig } from './env';
 import { createApp } from './app';
 import { createMailer } from './services/mailer';
+import { startNotificationWorker } from './services/notifications';
 import { createSheetEvents } from './services/sheet-events';
 
 /** Production entry point: connect, listen, and shut down cleanly on SIGTERM or SIGINT. */
@@ -13,6 +14,7 @@ async function main() {
   const mailer = createMailer(config.smtp);
   const events = createSheetEvents(config.databaseUrl);
   const app = createApp({ config, sequelize, mailer, events });
+  const notificationWorker = startNotificationWorker(sequelize, mailer);
   let closing = false;
   // Once shutting down, a request on a kept-alive connection (an event stream reconnecting) gets 503 and a closed
   // connection instead of reaching a database pool that is closing.
@@ -35,8 +37,13 @@ async function main() {
     // Open event streams would hold server.close() until they end: end them first.
     const eventsClosed = events.close();
     server.close(() => {
-      mailer.close();
-      void Promise.all([eventsClosed, sequelize.close()]).then(() => process.exit(0));
+      void notificationWorker
+        .stop()
+        .then(() => {
+          mailer.close();
+          return Promise.all([eventsClosed, sequelize.close()]);
+        })
+        .then(() => process.exit(0));
     });
     // Connections still open after 5 s are cut; say so in the exit code.
     setTimeout(() => process.exit(1), 5000);

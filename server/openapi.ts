@@ -27,6 +27,7 @@ import {
   updateParameterBodySchema,
 } from '@/shared/schemas/revisions';
 import { sessionResponseSchema } from '@/shared/schemas/session';
+import { markReadBodySchema, mailPreferencesSchema, notificationListSchema } from '@/shared/schemas/notifications';
 import { templateListSchema } from '@/shared/schemas/templates';
 import { accessTokenListSchema, createdTokenSchema, createTokenBodySchema, tokenParamsSchema } from '@/shared/schemas/tokens';
 
@@ -140,6 +141,38 @@ export const documentedRoutes: DocumentedRoute[] = [
     params: tokenParamsSchema,
     ok: { status: 204 },
     errors: [401, 403, 404],
+  },
+  {
+    method: 'get',
+    path: '/api/account/mail-preferences',
+    summary: 'Which kinds of notification the signed-in person also receives by mail',
+    ok: { status: 200, schema: mailPreferencesSchema },
+    errors: [401, 403],
+  },
+  {
+    method: 'put',
+    path: '/api/account/mail-preferences',
+    summary: 'Turns kinds of notification mail on or off',
+    body: mailPreferencesSchema,
+    ok: { status: 200, schema: mailPreferencesSchema },
+    errors: [400, 401, 403],
+  },
+  {
+    method: 'get',
+    path: '/api/notifications',
+    summary: "The signed-in person's latest notifications, newest first, and how many are unread",
+    ok: { status: 200, schema: notificationListSchema },
+    errors: [401],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: '/api/notifications/read',
+    summary: 'Marks the given notifications (or all of them) read',
+    body: markReadBodySchema,
+    ok: { status: 204 },
+    errors: [400, 401],
+    token: true,
   },
   {
     method: 'get',

@@ -1,11 +1,14 @@
 import { Router } from 'express';
+import { mailPreferencesSchema } from '@/shared/schemas/notifications';
 import { createTokenBodySchema, tokenParamsSchema } from '@/shared/schemas/tokens';
+import type { AppDeps } from '../app';
 import { currentUser } from '../middleware/require-user';
 import { validate } from '../middleware/validate';
 import { createToken, listTokens, revokeToken } from '../services/access-tokens';
+import { getMailPreferences, setMailPreferences } from '../services/notifications';
 
 /** Routes under /api/account: the signed-in person's own settings (mounted behind requireUser; never by token). */
-export function accountRouter(): Router {
+export function accountRouter({ sequelize }: AppDeps): Router {
   const router = Router();
 
   // GET /api/account/tokens: any signed-in person (session only); { tokens }; 401, 403 token_not_allowed.
@@ -23,6 +26,16 @@ export function accountRouter(): Router {
   router.delete('/tokens/:tokenId', validate({ params: tokenParamsSchema }), async (req, res) => {
     await revokeToken(currentUser(req), req.params.tokenId);
     res.status(204).end();
+  });
+
+  // GET /api/account/mail-preferences: any signed-in person (session only); which notifications also come by mail; 401, 403.
+  router.get('/mail-preferences', async (req, res) => {
+    res.json(await getMailPreferences(sequelize, currentUser(req)));
+  });
+
+  // PUT /api/account/mail-preferences: any signed-in person (session only); the preferences saved; 400, 401, 403.
+  router.put('/mail-preferences', validate({ body: mailPreferencesSchema }), async (req, res) => {
+    res.json(await setMailPreferences(sequelize, currentUser(req), req.body));
   });
 
   return router;

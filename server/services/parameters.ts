@@ -18,6 +18,7 @@ import {
   type StoredRow,
 } from '../models/sheet-rows';
 import { authorizeCraft, type CraftAccess } from './craft-access';
+import { notifyRowOwners } from './notifications';
 import { announce } from './sheet-events';
 import { selectRevision, selectSubsystems, sheetHeaderOf, toRevisionParameter, type SubsystemRecord } from './sheet-store';
 
@@ -87,6 +88,10 @@ async function writeRevision<T>(
     const outcome = await work(context);
     if (outcome.changes.length === 0) return outcome.result;
     await recordChanges(sequelize, revisionId, outcome.changes, user.id, transaction);
+    // Owners hear of changes to their rows in the working draft; a study is a what-if of its own.
+    if (revision.kind === 'draft') {
+      await notifyRowOwners(sequelize, transaction, { craftId, actor: user, changes: outcome.changes, subsystemOf: outcome.subsystemOf });
+    }
     await sequelize.query('UPDATE revisions SET updated_at = now() WHERE id = $1', { bind: [revisionId], transaction });
     await announce(
       sequelize,
