@@ -8,8 +8,9 @@ import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import { AccessTokens } from './access-tokens';
+import { MailPreferencesCard, NotificationList } from './notifications';
 
-/** Who is signed in, in which organisation, their personal access tokens, and the two ways to sign out. */
+/** Who is signed in, in which organisation, their notifications and mail settings, personal access tokens, and the two ways to sign out. */
 export function AccountScreen() {
   const user = useSessionUser();
   const signOut = useSignOut();
@@ -28,6 +29,8 @@ export function AccountScreen() {
           </View>
         </Card>
       ) : null}
+      <NotificationList />
+      <MailPreferencesCard />
       <AccessTokens />
       <Card>
         <AppText variant="heading">Sign out</AppText>

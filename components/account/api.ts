@@ -1,4 +1,5 @@
 import { apiRequest } from '@/components/api/client';
+import { mailPreferencesSchema, notificationListSchema, type MailPreferences } from '@/shared/schemas/notifications';
 import { accessTokenListSchema, createdTokenSchema, type AccessToken, type CreateTokenBody } from '@/shared/schemas/tokens';
 import type { z } from 'zod';
 
@@ -19,4 +20,24 @@ export function createToken(body: CreateTokenBody): Promise<CreatedToken> {
 /** DELETE /api/account/tokens/:tokenId: revokes the token; scripts using it are refused from then on. */
 export function revokeToken(tokenId: string): Promise<void> {
   return apiRequest('DELETE', `/api/account/tokens/${encodeURIComponent(tokenId)}`);
+}
+
+/** GET /api/notifications: the caller's latest notifications, newest first, and how many are unread. */
+export function listNotifications(): Promise<z.infer<typeof notificationListSchema>> {
+  return apiRequest('GET', '/api/notifications', { schema: notificationListSchema });
+}
+
+/** POST /api/notifications/read: marks these notifications read, or all of the caller's. */
+export function markNotificationsRead(ids?: readonly string[]): Promise<void> {
+  return apiRequest('POST', '/api/notifications/read', { body: ids === undefined ? {} : { ids } });
+}
+
+/** GET /api/account/mail-preferences: which kinds of notification also come by mail. */
+export function getMailPreferences(): Promise<MailPreferences> {
+  return apiRequest('GET', '/api/account/mail-preferences', { schema: mailPreferencesSchema });
+}
+
+/** PUT /api/account/mail-preferences: turns kinds of notification mail on or off. */
+export function setMailPreferences(preferences: MailPreferences): Promise<MailPreferences> {
+  return apiRequest('PUT', '/api/account/mail-preferences', { body: preferences, schema: mailPreferencesSchema });
 }
