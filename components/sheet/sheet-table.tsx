@@ -1,5 +1,5 @@
 import { memo, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { Pressable, ScrollView, StyleSheet, View, type TextInput } from 'react-native';
+import { Platform, Pressable, ScrollView, StyleSheet, View, type TextInput, type ViewStyle } from 'react-native';
 import { formatUnit } from '@/shared/format/quantity';
 import { useLiveRow } from '@/components/sizing/use-sheet-session';
 import { AppText } from '@/components/ui/text';
@@ -26,6 +26,11 @@ const columns = [
 ] as const;
 
 const cell = (index: number) => columns[index]?.style;
+
+// Web only: a row out of view skips layout and paint (its content sized as last laid out, before that as two lines of
+// 18 px), and the value field is no flex item, so it lays itself out alone. A keystroke then lays out the rows in view.
+const skippedOutOfView = (Platform.OS === 'web' ? { contentVisibility: 'auto', containIntrinsicSize: 'auto 36px' } : {}) as ViewStyle;
+const valueCellOnWeb = (Platform.OS === 'web' ? { display: 'block' } : {}) as ViewStyle;
 
 type RowProps = RowBinding & {
   /** The read-only reason said once at the row's group; the row repeats only a reason of its own. */
@@ -55,7 +60,7 @@ const SheetTableRow = memo(function SheetTableRow({
   const status = statusText(live);
   const editable = access?.editable === true && parameter.protected !== true;
   return (
-    <View style={styles.row} testID={`sheet-row-${rowKey}`}>
+    <View style={[styles.row, skippedOutOfView]} testID={`sheet-row-${rowKey}`}>
       <View style={styles.cells} role="row">
         <View style={cell(0)} role="cell">
           <AppText style={[styles.cellText, styles.label]} numberOfLines={2}>
@@ -65,7 +70,7 @@ const SheetTableRow = memo(function SheetTableRow({
             {rowKey}
           </AppText>
         </View>
-        <View style={cell(1)} role="cell">
+        <View style={[cell(1), valueCellOnWeb]} role="cell">
           {editable ? (
             <ValueInput
               parameter={parameter}

@@ -1,5 +1,5 @@
 import { useRef, useState } from 'react';
-import { StyleSheet, TextInput, type NativeSyntheticEvent, type TextInputKeyPressEventData } from 'react-native';
+import { Platform, StyleSheet, TextInput, type NativeSyntheticEvent, type TextInputKeyPressEventData, type TextStyle } from 'react-native';
 import { editText, formatUnit } from '@/shared/format/quantity';
 import { colors, fonts, fontSizes, radii, space } from '@/components/ui/theme';
 import type { Parameter } from '@/shared/schemas/sheet';
@@ -120,7 +120,8 @@ const styles = StyleSheet.create({
   },
   // Numbers line up on the right; a formula reads from the left.
   formula: { textAlign: 'left' },
-  compact: { minHeight: 32, width: '100%' },
+  // In the table the field's size never follows its text: contained, typing lays out the field alone (web).
+  compact: { minHeight: 32, width: '100%', ...((Platform.OS === 'web' ? { contain: 'size layout' } : {}) as TextStyle) },
   full: { minHeight: 44, fontSize: fontSizes.body },
   invalid: { borderColor: colors.danger, backgroundColor: colors.dangerSoft },
 });

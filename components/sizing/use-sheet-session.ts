@@ -1,4 +1,4 @@
-import { useMemo, useState, useSyncExternalStore } from 'react';
+import { useCallback, useMemo, useState, useSyncExternalStore } from 'react';
 import type { BudgetRollUp } from '@/shared/budget';
 import {
   createSheetSession,
@@ -50,7 +50,8 @@ export interface LiveRow {
 
 /** What a row component subscribes to, so that an edit re-renders only the rows whose results changed. */
 export interface LiveRowSource {
-  subscribe(listener: () => void): () => void;
+  /** Calls `listener` whenever the row of `key` changes (and only then); returns the unsubscribe. */
+  subscribeRow(key: string, listener: () => void): () => void;
   row(key: string): LiveRow;
 }
 
@@ -90,24 +91,59 @@ function messageOf(error: unknown): string {
  * Holds one engine session outside React, as an external store: the session is opened when the first
  * component subscribes and destroyed when the last one leaves, so a remount (React's strict mode does
  * one) never leaks a workbook, and every engine call happens in a subscription or an event handler.
+ * Rows subscribe by key: after an edit only the rows whose definition, value, error or refusal changed
+ * are told, so a keystroke costs the rows it changed, not every row of the sheet.
  */
 class LiveSheet implements LiveRowSource {
   private session: SheetSession | undefined;
   private state: SheetSessionState = { status: 'starting' };
   private readonly listeners = new Set<() => void>();
-  private readonly rowCache = new Map<string, { state: SheetSessionState; row: LiveRow }>();
-  private errorsOf: { state: SheetSessionState; byKey: Map<string, EngineError> } | undefined;
+  private readonly rowListeners = new Map<string, Set<() => void>>();
+  private subscribers = 0;
+  /** Each row as the state `rowsOf` has it, by key; a row keeps its object until it changes. */
+  private readonly liveRows = new Map<string, LiveRow>();
+  private rowsOf: SheetSessionState | undefined;
+  /** Keys of the rows that changed since the last emit. */
+  private readonly changedRows = new Set<string>();
 
   constructor(private initial: Sheet) {}
 
   readonly subscribe = (listener: () => void): (() => void) => {
     this.listeners.add(listener);
-    if (this.session === undefined && this.state.status === 'starting') this.open();
-    return () => {
-      this.listeners.delete(listener);
-      if (this.listeners.size === 0) this.close();
-    };
+    return this.hold(() => this.listeners.delete(listener));
   };
+
+  readonly subscribeRow = (key: string, listener: () => void): (() => void) => {
+    let forKey = this.rowListeners.get(key);
+    if (forKey === undefined) {
+      forKey = new Set();
+      this.rowListeners.set(key, forKey);
+    }
+    forKey.add(listener);
+    return this.hold(() => {
+      forKey.delete(listener);
+      if (forKey.size === 0) this.rowListeners.delete(key);
+    });
+  };
+
+  /** Counts a subscriber in: the first opens the session, the last one out closes it. */
+  private hold(release: () => void): () => void {
+    this.subscribers += 1;
+    if (this.session === undefined && this.state.status === 'starting') {
+      this.open();
+      // Nobody else listens yet: each subscriber reads the opened sheet as it subscribes, so there is no one to tell.
+      this.syncRows();
+      this.changedRows.clear();
+    }
+    let held = true;
+    return () => {
+      if (!held) return;
+      held = false;
+      release();
+      this.subscribers -= 1;
+      if (this.subscribers === 0) this.close();
+    };
+  }
 
   readonly getSnapshot = (): SheetSessionState => this.state;
 
@@ -158,41 +194,9 @@ class LiveSheet implements LiveRowSource {
   };
 
   readonly row = (key: string): LiveRow => {
-    const state = this.state;
-    const cached = this.rowCache.get(key);
-    if (cached !== undefined && cached.state === state) return cached.row;
-    const next = state.status === 'ready' ? this.readRow(state, key) : emptyRow;
-    const row = cached !== undefined && sameRow(cached.row, next) ? cached.row : next;
-    this.rowCache.set(key, { state, row });
-    return row;
+    this.syncRows();
+    return this.liveRows.get(key) ?? emptyRow;
   };
-
-  private readRow(state: Extract<SheetSessionState, { status: 'ready' }>, key: string): LiveRow {
-    if (this.errorsOf?.state !== state) {
-      this.errorsOf = { state, byKey: new Map(state.snapshot.errors.map((error) => [error.key, error])) };
-    }
-    return {
-      parameter: state.snapshot.sheet.parameters[this.indexOf(state, key)],
-      value: state.snapshot.values[key],
-      error: this.errorsOf.byKey.get(key),
-      rejection: state.rejected[key],
-    };
-  }
-
-  private indexCache: { sheet: Sheet; indexOf: Map<string, number> } | undefined;
-
-  private indexOf(state: Extract<SheetSessionState, { status: 'ready' }>, key: string): number {
-    const { sheet } = state.snapshot;
-    // Checked once per snapshot; the index itself is rebuilt only when the list of keys differs.
-    if (this.indexCache?.sheet !== sheet) {
-      const indexOf =
-        this.indexCache !== undefined && sameKeys(this.indexCache.sheet.parameters, sheet.parameters)
-          ? this.indexCache.indexOf
-          : new Map(sheet.parameters.map((parameter, index) => [parameter.key, index]));
-      this.indexCache = { sheet, indexOf };
-    }
-    return this.indexCache.indexOf.get(key) ?? -1;
-  }
 
   readonly undo = (): void => this.edit((session) => ({ result: session.undo(), rejected: {} }));
 
@@ -253,8 +257,53 @@ class LiveSheet implements LiveRowSource {
     this.emit();
   }
 
+  /** Tells the whole-sheet listeners, then the listeners of the rows that changed since the last time. */
   private emit(): void {
-    for (const listener of this.listeners) listener();
+    this.syncRows();
+    const changed = [...this.changedRows];
+    this.changedRows.clear();
+    for (const listener of [...this.listeners]) listener();
+    for (const key of changed) {
+      for (const listener of [...(this.rowListeners.get(key) ?? [])]) listener();
+    }
+  }
+
+  /**
+   * Brings `liveRows` to the current state, keeping the object of every unchanged row, and notes the keys
+   * that changed for the next emit (a row read before the emit has to leave them there for it).
+   */
+  private syncRows(): void {
+    const { state, liveRows } = this;
+    if (this.rowsOf === state) return;
+    this.rowsOf = state;
+    const parameters = state.status === 'ready' ? state.snapshot.sheet.parameters : [];
+    const values = state.status === 'ready' ? state.snapshot.values : {};
+    const rejected = state.status === 'ready' ? state.rejected : {};
+    const errorOf = new Map(state.status === 'ready' ? state.snapshot.errors.map((error) => [error.key, error]) : []);
+    const current = new Set<string>();
+    let added = false;
+    for (const parameter of parameters) {
+      const { key } = parameter;
+      // The first row of a key is the row of that key, as everywhere else in the engine.
+      if (current.has(key)) continue;
+      current.add(key);
+      const before = liveRows.get(key);
+      const value = values[key];
+      const error = errorOf.get(key);
+      const rejection = rejected[key];
+      if (before !== undefined && sameRow(before, parameter, value, error, rejection)) continue;
+      added ||= before === undefined;
+      liveRows.set(key, { parameter, value, error, rejection });
+      this.changedRows.add(key);
+    }
+    // Only a sheet that gained a key (or has fewer) may have lost one: then look for the keys that are gone.
+    if (added || current.size !== liveRows.size) {
+      for (const key of liveRows.keys()) {
+        if (current.has(key)) continue;
+        liveRows.delete(key);
+        this.changedRows.add(key);
+      }
+    }
   }
 }
 
@@ -268,14 +317,21 @@ function sameParameter(a: Parameter, b: Parameter | undefined): boolean {
   return a === b || JSON.stringify(a) === JSON.stringify(b);
 }
 
-function sameRow(a: LiveRow, b: LiveRow): boolean {
+/** Whether a row reads the same with these parts: values and errors compare by content, since each state makes new ones. */
+function sameRow(
+  row: LiveRow,
+  parameter: Parameter,
+  value: EvaluatedValue | undefined,
+  error: EngineError | undefined,
+  rejection: Rejection | undefined,
+): boolean {
   return (
-    a.parameter === b.parameter &&
-    a.value?.value === b.value?.value &&
-    a.value?.unit === b.value?.unit &&
-    a.error?.code === b.error?.code &&
-    a.error?.message === b.error?.message &&
-    a.rejection === b.rejection
+    row.parameter === parameter &&
+    row.value?.value === value?.value &&
+    row.value?.unit === value?.unit &&
+    row.error?.code === error?.code &&
+    row.error?.message === error?.message &&
+    row.rejection === rejection
   );
 }
 
@@ -316,6 +372,7 @@ export function useFollowingSheetSession(initial: Sheet): FollowingSheetHandle {
 
 /** One row of a live sheet, re-rendering its component only when that row changes. */
 export function useLiveRow(rows: LiveRowSource, key: string): LiveRow {
+  const subscribe = useCallback((listener: () => void) => rows.subscribeRow(key, listener), [rows, key]);
   const read = () => rows.row(key);
-  return useSyncExternalStore(rows.subscribe, read, read);
+  return useSyncExternalStore(subscribe, read, read);
 }

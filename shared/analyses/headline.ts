@@ -1,6 +1,6 @@
 import type { BudgetRollUp } from '@/shared/budget';
 import { sheetBudget, type AnalysisResult, type Evaluation } from '@/shared/engine';
-import type { Sheet } from '@/shared/schemas/sheet';
+import type { Parameter, Sheet } from '@/shared/schemas/sheet';
 import { rowRoleDefinitions, sheetRoles, standardHeadline, type RowRole } from '@/shared/templates/roles';
 
 /** One headline figure: the row playing the role and its value in the row's own unit. */
@@ -32,15 +32,27 @@ export function sheetMassBudget(sheet: Sheet, evaluation: Evaluation): AnalysisR
 /**
  * The headline figures of an evaluated sheet in the headline's order (by default the sail templates':
  * areal density, characteristic acceleration, lightness number, force, temperature, predicted mass,
- * margin). Each reads the row of its role; the margin is flagged from the budget roll-up.
+ * margin). Each reads the row of its role; the margin is flagged from the budget roll-up, which a caller
+ * that has rolled the sheet's budget up already (a live sheet does on every edit) passes in.
  */
-export function headlineFigures(sheet: Sheet, evaluation: Evaluation, headline: readonly RowRole[] = standardHeadline): HeadlineFigure[] {
+export function headlineFigures(
+  sheet: Sheet,
+  evaluation: Evaluation,
+  headline: readonly RowRole[] = standardHeadline,
+  rolledUp?: AnalysisResult<BudgetRollUp>,
+): HeadlineFigure[] {
   const keys = sheetRoles(sheet);
-  const budget = headline.includes('system_margin') ? sheetMassBudget(sheet, evaluation) : undefined;
+  const budget = headline.includes('system_margin') ? (rolledUp ?? sheetMassBudget(sheet, evaluation)) : undefined;
+  // The first row of each headline key, found in one pass over the sheet.
+  const wanted = new Set(headline.flatMap((role) => keys[role] ?? []));
+  const rowOf = new Map<string, Parameter>();
+  for (const parameter of sheet.parameters) {
+    if (wanted.has(parameter.key) && !rowOf.has(parameter.key)) rowOf.set(parameter.key, parameter);
+  }
   return headline.map((role) => {
     const label = rowRoleDefinitions[role].label;
     const key = keys[role];
-    const parameter = key === undefined ? undefined : sheet.parameters.find((candidate) => candidate.key === key);
+    const parameter = key === undefined ? undefined : rowOf.get(key);
     if (key === undefined || parameter === undefined) {
       return { role, key: role, label, value: undefined, unit: '', problem: `no row of the sheet has the role "${role}"` };
     }

@@ -22,9 +22,15 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResul
       rowError('', 'budget_error', 'no row has the role mass_allocation, so the budget has no allocation to hold a margin against'),
     );
   }
-  // The first row of each key, as a sheet with duplicate keys is read everywhere else.
+  const massRows = sheet.parameters.filter((parameter) => parameter.mass !== undefined);
+  // The first row of each key the budget reads, as a sheet with duplicate keys is read everywhere else
+  // (only those keys: an index of every key would cost a large sheet more than the roll-up itself).
+  const wanted = new Set(massRows.map((parameter) => parameter.key));
+  if (allocationKey !== undefined) wanted.add(allocationKey);
   const byKey = new Map<string, Parameter>();
-  for (const parameter of sheet.parameters) if (!byKey.has(parameter.key)) byKey.set(parameter.key, parameter);
+  for (const parameter of sheet.parameters) {
+    if (wanted.has(parameter.key) && !byKey.has(parameter.key)) byKey.set(parameter.key, parameter);
+  }
   const inKilograms = (key: string): number | undefined => {
     const parameter = byKey.get(key);
     const value = evaluation.values[key];
@@ -37,10 +43,9 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResul
     else return toSI(value.value, unit.value);
     return undefined;
   };
-  const rows: BudgetRowInput[] = sheet.parameters.flatMap((parameter) => {
-    if (parameter.mass === undefined) return [];
-    const cbe = inKilograms(parameter.key);
-    return cbe === undefined ? [] : [{ key: parameter.key, subsystem: parameter.subsystem, cbe, ...parameter.mass }];
+  const rows: BudgetRowInput[] = massRows.flatMap(({ key, subsystem, mass }) => {
+    const cbe = inKilograms(key);
+    return mass === undefined || cbe === undefined ? [] : [{ key, subsystem, cbe, ...mass }];
   });
   const allocation = allocationKey === undefined ? undefined : inKilograms(allocationKey);
   const preset = sheetPreset(sheet.budget);

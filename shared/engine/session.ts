@@ -100,6 +100,13 @@ class Session implements SheetSession {
   private contents: (readonly [RawCellContent, RawCellContent])[];
   private workbook: HyperFormula;
   private results: (number | EngineError)[];
+  /**
+   * Each row's value as values() gives it (undefined for a row without one), kept between edits: an edit
+   * renews the rows it recomputed and the rows whose error came or went, not all of them.
+   */
+  private shown: (EvaluatedValue | undefined)[] = [];
+  /** Rows whose `shown` entry is out of date; undefined when all of them are. */
+  private staleShown: Set<number> | undefined;
   private readonly undoStack: Edit[] = [];
   private readonly redoStack: Edit[] = [];
 
@@ -120,6 +127,7 @@ class Session implements SheetSession {
   /** Replaces the whole sheet: new analysis and a new workbook. */
   private load(sheet: Sheet): EditResult {
     this.rowErrors = undefined;
+    this.staleShown = undefined;
     this.workbook.destroy();
     this.budget = sheet.budget;
     this.analysis = analyseSheet(sheet);
@@ -145,20 +153,59 @@ class Session implements SheetSession {
   private rowErrors: (EngineError | undefined)[] | undefined;
 
   private states(): (EngineError | undefined)[] {
-    this.rowErrors ??= rowStates(this.analysis, (index) => this.results[index]);
-    return this.rowErrors;
+    if (this.rowErrors !== undefined) return this.rowErrors;
+    const before = this.staleShown === undefined ? undefined : this.shownStates;
+    const states = rowStates(this.analysis, (index) => this.results[index]);
+    // A row whose error came or went shows a value, or stops showing one, though nothing recomputed it.
+    if (before !== undefined) {
+      states.forEach((state, index) => {
+        if ((state === undefined) !== (before[index] === undefined)) this.staleShown?.add(index);
+      });
+    }
+    this.rowErrors = states;
+    return states;
+  }
+
+  /** The states `shown` was last brought up to date with. */
+  private shownStates: (EngineError | undefined)[] = [];
+
+  /** Brings `shown` up to date: the stale rows, or every row after a rebuild. */
+  private refreshShown(): (EvaluatedValue | undefined)[] {
+    const states = this.states();
+    const stale = this.staleShown;
+    if (stale === undefined) {
+      this.shown = this.rows.map((_, index) => this.shownValue(index, states, undefined));
+    } else {
+      for (const index of stale) this.shown[index] = this.shownValue(index, states, this.shown[index]);
+    }
+    this.staleShown = new Set();
+    this.shownStates = states;
+    return this.shown;
+  }
+
+  /** A row's value in its own unit, or undefined when it has none; `before` is kept when the value is the same. */
+  private shownValue(
+    index: number,
+    states: readonly (EngineError | undefined)[],
+    before: EvaluatedValue | undefined,
+  ): EvaluatedValue | undefined {
+    const row = this.rows[index];
+    const result = this.results[index];
+    if (row === undefined || states[index] !== undefined || typeof result !== 'number' || row.unit === undefined) return undefined;
+    // An input reads back as typed: converting it to SI and back would add float noise.
+    const value = row.parameter.value ?? fromSI(result, row.unit);
+    const unit = row.parameter.unit;
+    return before?.value === value && before.unit === unit ? before : { value, unit };
   }
 
   values(): Record<string, EvaluatedValue> {
-    const states = this.states();
+    const shown = this.refreshShown();
     const values: Record<string, EvaluatedValue> = {};
-    this.rows.forEach((row, index) => {
-      const result = this.results[index];
-      if (states[index] !== undefined || typeof result !== 'number' || row.unit === undefined) return;
-      // An input reads back as typed: converting it to SI and back would add float noise.
-      const value = row.parameter.value ?? fromSI(result, row.unit);
-      values[row.parameter.key] = { value, unit: row.parameter.unit };
-    });
+    for (let index = 0; index < shown.length; index += 1) {
+      const value = shown[index];
+      const key = this.rows[index]?.parameter.key;
+      if (value !== undefined && key !== undefined) values[key] = value;
+    }
     return values;
   }
 
@@ -319,6 +366,7 @@ class Session implements SheetSession {
       this.results[change.row] = readCell(row.parameter.key, change.newValue);
       recomputed.add(change.row);
     }
+    for (const row of recomputed) this.staleShown?.add(row);
     return {
       ok: true,
       recomputed: [...recomputed].sort((a, b) => a - b).map((row) => this.rows[row]?.parameter.key ?? ''),

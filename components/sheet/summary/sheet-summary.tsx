@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { memo, useMemo } from 'react';
 import { Platform, ScrollView, StyleSheet, useWindowDimensions, View, type ViewStyle } from 'react-native';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
@@ -8,6 +8,7 @@ import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
 import { headlineFigures, type HeadlineFigure } from '@/shared/analyses';
+import { standardHeadline } from '@/shared/templates';
 
 // On the web the card stays in view while the sheet scrolls under it; `sticky` is a web-only position.
 const stickyOnWeb = (Platform.OS === 'web' ? { position: 'sticky', top: 0, zIndex: 2 } : {}) as ViewStyle;
@@ -24,7 +25,22 @@ function sentence(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
-function Figure({ figure, detail, compact }: { figure: HeadlineFigure; detail: string | undefined; compact: boolean }) {
+type FigureProps = { figure: HeadlineFigure; detail: string | undefined; compact: boolean };
+
+/** Whether a figure would read the same: each edit makes new figures, most of them unchanged. */
+function sameFigure(a: FigureProps, b: FigureProps): boolean {
+  return (
+    a.detail === b.detail &&
+    a.compact === b.compact &&
+    a.figure.label === b.figure.label &&
+    a.figure.value === b.figure.value &&
+    a.figure.unit === b.figure.unit &&
+    a.figure.flag === b.figure.flag &&
+    a.figure.problem === b.figure.problem
+  );
+}
+
+const Figure = memo(function Figure({ figure, detail, compact }: FigureProps) {
   const flagged = figure.flag !== undefined;
   return (
     <View
@@ -40,7 +56,7 @@ function Figure({ figure, detail, compact }: { figure: HeadlineFigure; detail: s
       {figure.problem !== undefined ? <AppText variant="error">{figure.problem}</AppText> : null}
     </View>
   );
-}
+}, sameFigure);
 
 /**
  * The sheet's headline figures, found by role in shared code: areal density, characteristic
@@ -48,7 +64,11 @@ function Figure({ figure, detail, compact }: { figure: HeadlineFigure; detail: s
  * warning style below the required margin. Stays in view as the sheet scrolls, with the caution.
  */
 export function SheetSummary({ snapshot }: { snapshot: SheetSnapshot }) {
-  const figures = useMemo(() => headlineFigures(snapshot.sheet, { values: snapshot.values, errors: [...snapshot.errors] }), [snapshot]);
+  // The live sheet rolled the budget up with this state already: the margin's flag reads that roll-up.
+  const figures = useMemo(
+    () => headlineFigures(snapshot.sheet, { values: snapshot.values, errors: [...snapshot.errors] }, standardHeadline, snapshot.budget),
+    [snapshot],
+  );
   const flagged = figures.some((figure) => figure.flag !== undefined);
   // A phone keeps the card short, so the sheet stays visible under it: one row that scrolls sideways.
   const compact = useWindowDimensions().width < sideNavBreakpoint;

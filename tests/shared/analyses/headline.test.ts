@@ -95,6 +95,16 @@ describe('headlineFigures', () => {
     expect(margin?.value).toBeCloseTo(1.75, 2);
   });
 
+  it('reads the flag from the roll-up a caller has made already, and gives the same figures as rolling it up itself', () => {
+    const tight = evaluateSheet(sheet, { mass_allocation: 30 });
+    const rolledUp = sheetMassBudget(sheet, tight);
+    expect(headlineFigures(sheet, tight, undefined, rolledUp)).toEqual(headlineFigures(sheet, tight));
+    // The roll-up passed in is the one read: a roomy sheet's margin carries the flag of the tight roll-up.
+    const roomy = evaluateSheet(sheet);
+    const margin = headlineFigures(sheet, roomy, undefined, rolledUp).find((figure) => figure.role === 'system_margin');
+    expect(margin?.flag).toBe(BELOW_REQUIRED_MARGIN);
+  });
+
   it('says why a figure has no value: the row error, or the missing role', () => {
     const evaluation = evaluateSheet(sheet, { sail_side: 0 });
     const areal = headlineFigures(sheet, evaluation)[0];

@@ -1,5 +1,7 @@
 import type { Sheet } from '@/shared/schemas/sheet';
+import { evaluateSheet } from '@/shared/engine/evaluate';
 import { createSheetSession, type SheetSession } from '@/shared/engine/session';
+import { syntheticSheet } from '@/tests/bench/synthetic-sheet';
 
 const sheet: Sheet = {
   name: 'session test',
@@ -143,5 +145,101 @@ describe('createSheetSession', () => {
     budgeted.undo();
     expect(budgeted.values().predicted?.value).toBeCloseTo(12, 12);
     budgeted.destroy();
+  });
+
+  it('drops the value of a row whose input breaks even when its own result stays the same, and brings it back', () => {
+    const guarded = createSheetSession({
+      name: 'guarded',
+      parameters: [
+        { key: 'a', label: 'a', subsystem: 's', unit: 'm', value: 1 },
+        { key: 'b', label: 'b', subsystem: 's', unit: 'm', formula: '=a * 2' },
+        // Gives 1 whatever b is, also when b has no value at all.
+        { key: 'flag', label: 'flag', subsystem: 's', unit: '', formula: '=IF(b > a, 1, 1)' },
+      ],
+    });
+    try {
+      expect(guarded.values().flag?.value).toBe(1);
+      guarded.setFormula('b', '=a *');
+      expect(guarded.values().flag).toBeUndefined();
+      expect(guarded.errors().map((error) => [error.key, error.code])).toEqual([
+        ['b', 'syntax_error'],
+        ['flag', 'dependency_error'],
+      ]);
+      guarded.setFormula('b', '=a * 3');
+      expect(guarded.values().flag?.value).toBe(1);
+      expect(guarded.errors()).toEqual([]);
+    } finally {
+      guarded.destroy();
+    }
+  });
+
+  describe('on a large sheet', () => {
+    const large = syntheticSheet(400);
+    const inputs = large.parameters.filter((parameter) => parameter.value !== undefined).map((parameter) => parameter.key);
+    const formulaRows = large.parameters.filter((parameter) => parameter.formula !== undefined).map((parameter) => parameter.key);
+
+    /** Every row that reads `key`, directly or through other rows, and `key` itself. */
+    function cone(key: string): Set<string> {
+      const found = new Set([key]);
+      for (const parameter of large.parameters) {
+        const reads = parameter.formula?.match(/p_\d+/g) ?? [];
+        if (reads.some((read) => found.has(read))) found.add(parameter.key);
+      }
+      return found;
+    }
+
+    it('recomputes only the rows that read the edited input, and those that changed are among them', () => {
+      const live = createSheetSession(large);
+      try {
+        const before = live.values();
+        const edited = inputs[inputs.length - 5] ?? 'p_0';
+        const result = live.setInput(edited, 7.5);
+        if (!result.ok) throw new Error(result.error.message);
+        const after = live.values();
+        const changed = Object.keys(after).filter((key) => after[key]?.value !== before[key]?.value);
+        expect(changed).toContain(edited);
+        expect(result.recomputed.length).toBeLessThan(large.parameters.length / 2);
+        expect(new Set(result.recomputed)).toEqual(new Set([...result.recomputed].filter((key) => cone(edited).has(key))));
+        for (const key of changed) expect(result.recomputed).toContain(key);
+      } finally {
+        live.destroy();
+      }
+    });
+
+    it('gives the values and errors of a full evaluation after every edit, errors coming and going included', () => {
+      const live = createSheetSession(large);
+      const side = formulaRows[20] ?? 'p_3';
+      const edits: ((session: SheetSession) => unknown)[] = [
+        (session) => session.setInput(inputs[0] ?? 'p_0', 12),
+        (session) => session.setInput(inputs[3] ?? 'p_1', '2 km'),
+        // A broken formula: its readers lose their values, and get them back when it is fixed.
+        (session) => session.setFormula(side, '=p_0 +'),
+        (session) => session.setInput(inputs[0] ?? 'p_0', 13),
+        (session) => session.setFormula(side, '=p_0 * 2'),
+        // A unit of another dimension: the readers fail their dimension checks.
+        (session) => session.updateParameter('p_1', { ...(large.parameters[1] ?? { key: 'p_1', label: '', subsystem: '' }), unit: 'kg' }),
+        (session) => session.undo(),
+        (session) => session.setFormula('p_2', `=${formulaRows.at(-1) ?? 'p_3'}`),
+        (session) => session.undo(),
+        (session) => session.setInput(inputs[1] ?? 'p_1', 0),
+        (session) => session.removeParameter(formulaRows[10] ?? 'p_3'),
+        (session) => session.setInput(inputs[2] ?? 'p_2', 99),
+        (session) => session.undo(),
+        (session) => session.undo(),
+      ];
+      let errorsSeen = 0;
+      try {
+        for (const edit of edits) {
+          edit(live);
+          const full = evaluateSheet(live.sheet());
+          expect(live.errors()).toEqual(full.errors);
+          expect(live.values()).toEqual(full.values);
+          errorsSeen += full.errors.length;
+        }
+        expect(errorsSeen).toBeGreaterThan(0);
+      } finally {
+        live.destroy();
+      }
+    });
   });
 });
