@@ -17,6 +17,8 @@ export interface Who {
    * shared with a partner. Ignored for the other roles.
    */
   readonly subsystemIds?: readonly string[];
+  /** The person's id: a study's owner (who opened it) edits all of it. Without it, nobody is an owner. */
+  readonly userId?: string;
 }
 
 /** Actions on the organisation itself. */
@@ -50,6 +52,14 @@ export const craftPermissions = {
   viewWholeSheet: { roles: fullReaders, orgAdmin: true },
   /** Add, rename and remove subsystems. */
   manageSubsystems: { roles: engineers, orgAdmin: false },
+  /** Lock the working draft as a baseline for a design review. */
+  lockBaseline: { roles: ['chief_engineer'], orgAdmin: false },
+  /** Open a study (a named branch) from any revision: whoever may edit rows. */
+  openStudy: { roles: ['subsystem_owner', ...engineers], orgAdmin: false },
+  /** Merge a study into the working draft. */
+  promoteStudy: { roles: ['chief_engineer'], orgAdmin: false },
+  /** Read and export the craft's audit log (locks, promotions, role changes, tokens). */
+  viewAudit: { roles: ['chief_engineer'], orgAdmin: true },
 } as const satisfies Record<string, { roles: readonly CraftRole[]; orgAdmin: boolean }>;
 
 export type CraftAction = keyof typeof craftPermissions;
@@ -61,21 +71,37 @@ export function mayOnCraft(action: CraftAction, who: Who): boolean {
   return who.role !== null && (rule.roles as readonly CraftRole[]).includes(who.role);
 }
 
-/** Where a revision stands: its kind and whether it is locked (a baseline) or still open for edits. */
+/**
+ * Where a revision stands: its kind, whether it is locked (a baseline, a promoted study) or still open for
+ * edits, and who created it (a study's owner). The API's revision satisfies it.
+ */
 export interface RevisionStanding {
   readonly kind: 'draft' | 'baseline' | 'study';
   readonly state: 'open' | 'locked';
+  readonly createdBy?: { readonly id: string } | null;
+}
+
+/** The standing of a stored revision (its creator by id). */
+export function standingOf(revision: {
+  readonly kind: RevisionStanding['kind'];
+  readonly state: RevisionStanding['state'];
+  readonly createdById: string | null;
+}): RevisionStanding {
+  return { kind: revision.kind, state: revision.state, createdBy: revision.createdById === null ? null : { id: revision.createdById } };
 }
 
 /**
  * Which rows a role reaches for an action: every row, the rows of the subsystems its membership names
- * (owned or shared), or none. `states` lists the revision states the action is possible in.
+ * (owned or shared), or none. `states` lists the revision states the action is possible in. `inStudy`,
+ * when given, replaces `reach` in a study: subsystem ownership does not apply there, and the study's
+ * owner (while they may still open studies) reaches what `owner` says.
  */
 type Reach = 'all' | 'named_subsystems';
 interface RowRule {
   readonly reach: Partial<Record<CraftRole, Reach>>;
   readonly orgAdmin: Reach | null;
   readonly states: readonly RevisionStanding['state'][];
+  readonly inStudy?: { readonly reach: Partial<Record<CraftRole, Reach>>; readonly owner: Reach };
 }
 
 /** Actions on one row of a revision. */
@@ -86,34 +112,47 @@ export const rowPermissions = {
     orgAdmin: 'all',
     states: ['open', 'locked'],
   },
-  /** Change the row's value, formula, unit, label, note, source or maturity. */
+  /** Change the row's value, formula, unit, label, note, source or maturity. In a study: its owner and the engineers. */
   editRow: {
     reach: { subsystem_owner: 'named_subsystems', systems_engineer: 'all', chief_engineer: 'all' },
     orgAdmin: null,
     states: ['open'],
+    inStudy: { reach: { systems_engineer: 'all', chief_engineer: 'all' }, owner: 'all' },
   },
-  /** Add, rename, reorder, move to another subsystem or delete the row. */
+  /** Add, rename, reorder, move to another subsystem or delete the row. In a study: its owner and the engineers. */
   manageRow: {
     reach: { systems_engineer: 'all', chief_engineer: 'all' },
     orgAdmin: null,
     states: ['open'],
+    inStudy: { reach: { systems_engineer: 'all', chief_engineer: 'all' }, owner: 'all' },
   },
 } as const satisfies Record<string, RowRule>;
 
 export type RowAction = keyof typeof rowPermissions;
 
-function reaches(reach: Reach | null | undefined, who: Who, subsystemId: string): boolean {
-  if (reach === 'all') return true;
-  if (reach === 'named_subsystems') return (who.subsystemIds ?? []).includes(subsystemId);
-  return false;
+function reaches(reach: Reach, who: Who, subsystemId: string): boolean {
+  return reach === 'all' || (who.subsystemIds ?? []).includes(subsystemId);
+}
+
+/** Whether the person opened this study and may still open studies (a demoted owner only reads it). */
+function ownsStudy(who: Who, revision: RevisionStanding): boolean {
+  return revision.kind === 'study' && who.userId !== undefined && revision.createdBy?.id === who.userId && mayOnCraft('openStudy', who);
+}
+
+/** The reaches the person has for the action in a revision of this standing: by role, as an admin, as a study's owner. */
+function reachesFor(action: RowAction, who: Who, revision: RevisionStanding): Reach[] {
+  const rule: RowRule = rowPermissions[action];
+  if (!rule.states.includes(revision.state)) return [];
+  const study = revision.kind === 'study' ? rule.inStudy : undefined;
+  const byRole = who.role === null ? undefined : (study ?? rule).reach[who.role];
+  return [byRole, who.isOrgAdmin ? rule.orgAdmin : null, study && ownsStudy(who, revision) ? study.owner : null].filter(
+    (reach): reach is Reach => reach !== null && reach !== undefined,
+  );
 }
 
 /** Whether the person may take the action on a row of the given subsystem in a revision of this standing. */
 export function mayOnRow(action: RowAction, who: Who, row: { readonly subsystemId: string }, revision: RevisionStanding): boolean {
-  const rule: RowRule = rowPermissions[action];
-  if (!rule.states.includes(revision.state)) return false;
-  const byRole = who.role === null ? false : reaches(rule.reach[who.role], who, row.subsystemId);
-  return byRole || (who.isOrgAdmin && reaches(rule.orgAdmin, who, row.subsystemId));
+  return reachesFor(action, who, revision).some((reach) => reaches(reach, who, row.subsystemId));
 }
 
 /**
@@ -121,12 +160,7 @@ export function mayOnRow(action: RowAction, who: Who, row: { readonly subsystemI
  * offering an edit control at all, and what the server checks before a row is named.
  */
 export function mayOnAnyRow(action: RowAction, who: Who, revision: RevisionStanding): boolean {
-  const rule: RowRule = rowPermissions[action];
-  if (!rule.states.includes(revision.state)) return false;
-  const reach = who.role === null ? undefined : rule.reach[who.role];
-  const adminReach = who.isOrgAdmin ? rule.orgAdmin : null;
-  const some = (r: Reach | null | undefined) => r === 'all' || (r === 'named_subsystems' && (who.subsystemIds ?? []).length > 0);
-  return some(reach) || some(adminReach);
+  return reachesFor(action, who, revision).some((reach) => reach === 'all' || (who.subsystemIds ?? []).length > 0);
 }
 
 /**
@@ -141,7 +175,14 @@ export function whyNotOnRow(
 ): string | undefined {
   if (mayOnRow(action, who, row, revision)) return undefined;
   const rule: RowRule = rowPermissions[action];
-  if (!rule.states.includes(revision.state)) return `This ${revision.kind} is locked: its rows cannot change`;
+  if (!rule.states.includes(revision.state)) {
+    return revision.kind === 'study'
+      ? 'This study was promoted and is locked: its rows cannot change'
+      : `This ${revision.kind} is locked: its rows cannot change`;
+  }
+  if (revision.kind === 'study' && rule.inStudy && mayOnCraft('openStudy', who)) {
+    return 'A study is changed by its owner and by systems and chief engineers; open a study of your own to try changes';
+  }
   if (action === 'editRow' && who.role === 'subsystem_owner') {
     return `You own other subsystems; rows of "${row.subsystemName}" are edited by their owner or an engineer`;
   }

@@ -129,6 +129,11 @@ function generatedCodeAvailable(): boolean {
 /** How to compile: generated functions where the environment allows them (the default), else closures. */
 export interface CompileOptions {
   readonly generatedCode?: boolean;
+  /**
+   * Another version of the sheet (another revision), compiled: its analysis of the rows that did not change is
+   * reused (see analyseSheet), and its compiled functions when they would be generated the same.
+   */
+  readonly reuse?: CompiledSheet;
 }
 
 /** A sheet compiled to plain functions over SI values, indexed like the sheet's rows. */
@@ -139,13 +144,19 @@ export interface CompiledSheet {
   /** SI values of every row at the sheet's own inputs (NaN where a row has an error). */
   readonly base: Float64Array;
   /**
+   * Recomputes every formula row without an error, in place in an SI value array, from the inputs there:
+   * with the functions `base` was computed with, so no code is generated again.
+   */
+  evaluate(values: Float64Array): void;
+  /**
    * A function that recomputes, in place in an SI value array, the rows that depend on `inputs`
    * and that `outputs` need; other rows keep their value.
    */
   program(inputs: readonly number[], outputs: readonly number[]): (values: Float64Array) => void;
 }
 
-function reachable(start: readonly number[], edges: readonly (readonly number[])[]): Set<number> {
+/** Row indices reachable from `start` (included) along `edges`: a graph's `dependencies` (upstream) or `dependents` (downstream). */
+export function reachable(start: readonly number[], edges: readonly (readonly number[])[]): Set<number> {
   const seen = new Set<number>(start);
   const pending = [...start];
   for (let next = pending.pop(); next !== undefined; next = pending.pop()) {
@@ -158,21 +169,46 @@ function reachable(start: readonly number[], edges: readonly (readonly number[])
   return seen;
 }
 
+/** The formula rows a runner computes, in order, and how its code was generated. */
+interface GeneratedFrom {
+  readonly rows: readonly { readonly index: number; readonly formula: FormulaNode }[];
+  readonly generatedCode: boolean;
+  readonly evaluate: Runner;
+}
+
+/** What each compiled sheet's `evaluate` was generated from, so that another version of the sheet can reuse it. */
+const generatedFrom = new WeakMap<CompiledSheet, GeneratedFrom>();
+
+/**
+ * The `evaluate` of `previous` when `code` would generate the same: same dependency graph (so the same keys
+ * in the same places) and the same formula trees in the same rows. Trees are the same objects only in rows
+ * whose analysis was reused, so the growth allowances they read are the same too.
+ */
+function reusableRunner(previous: CompiledSheet | undefined, analysis: SheetAnalysis, code: Omit<GeneratedFrom, 'evaluate'>) {
+  const before = previous === undefined ? undefined : generatedFrom.get(previous);
+  if (before === undefined || previous?.analysis.graph !== analysis.graph || before.generatedCode !== code.generatedCode) return undefined;
+  const sameRows =
+    before.rows.length === code.rows.length &&
+    code.rows.every((row, at) => row.index === before.rows[at]?.index && row.formula === before.rows[at]?.formula);
+  return sameRows ? before.evaluate : undefined;
+}
+
 /**
  * Compiles a sheet. Rows with static errors are left out (their values stay NaN) and listed in
  * `errors`; inputs and material values are placed in `base`.
  */
 export function compileSheet(sheet: Sheet, options: CompileOptions = {}): CompiledSheet {
-  const analysis = analyseSheet(sheet);
+  const analysis = analyseSheet(sheet, options.reuse?.analysis);
   const states = rowStates(analysis, () => undefined);
   const allowances = new Float64Array(analysis.rows.map((row) => row.allowance ?? Number.NaN));
-  const compilable = (index: number): FormulaNode | undefined => (states[index] === undefined ? analysis.rows[index]?.formula : undefined);
-  const build = (indices: readonly number[]): Runner => {
-    const rows = indices.flatMap((index) => {
-      const formula = compilable(index);
+  const generatedCode = options.generatedCode ?? generatedCodeAvailable();
+  const formulaRows = (indices: readonly number[]) =>
+    indices.flatMap((index) => {
+      const formula = states[index] === undefined ? analysis.rows[index]?.formula : undefined;
       return formula === undefined ? [] : [{ index, formula }];
     });
-    if (options.generatedCode ?? generatedCodeAvailable()) {
+  const build = (rows: GeneratedFrom['rows']): Runner => {
+    if (generatedCode) {
       return compileChunks(
         rows.map(({ index, formula }) => `v[${index}]=${expression(formula, analysis.indexOf)};`),
         allowances,
@@ -186,17 +222,24 @@ export function compileSheet(sheet: Sheet, options: CompileOptions = {}): Compil
   const base = new Float64Array(
     analysis.rows.map((row, index) => (states[index] === undefined ? (row.siValue ?? Number.NaN) : Number.NaN)),
   );
-  build(analysis.graph.order)(base);
-  return {
+  const code = { rows: formulaRows(analysis.graph.order), generatedCode };
+  const evaluate = reusableRunner(options.reuse, analysis, code) ?? build(code.rows);
+  evaluate(base);
+  const compiled: CompiledSheet = {
     analysis,
     errors: states.filter((state): state is EngineError => state !== undefined),
     base,
+    evaluate,
     program: (inputs, outputs) => {
       const downstream = reachable(inputs, analysis.graph.dependents);
       const upstream = reachable(outputs, analysis.graph.dependencies);
-      return build(analysis.graph.order.filter((index) => downstream.has(index) && upstream.has(index) && !inputs.includes(index)));
+      return build(
+        formulaRows(analysis.graph.order.filter((index) => downstream.has(index) && upstream.has(index) && !inputs.includes(index))),
+      );
     },
   };
+  generatedFrom.set(compiled, { ...code, evaluate });
+  return compiled;
 }
 
 /** Why a compiled evaluation gave no finite value for a row. */

@@ -367,8 +367,61 @@ export function reanalyseRow(analysis: SheetAnalysis, index: number): void {
     : row;
 }
 
-/** Analyses every row of a sheet and builds its dependency graph. */
-export function analyseSheet(sheet: Sheet): SheetAnalysis {
+/** Whether two versions of a row read the same to the rows whose formulas refer to it: unit, mass category and maturity. */
+function sameAsRead(a: Parameter, b: Parameter): boolean {
+  return a.unit === b.unit && a.mass?.maturity === b.mass?.maturity && a.mass?.category === b.mass?.category;
+}
+
+/**
+ * The rows of `previous`, an analysis of another version of the sheet (another revision), that `analysis` may
+ * take as they are: same definition, and nothing the analysis of the row read elsewhere changed (the unit,
+ * mass category and maturity of the rows it refers to, whether they exist, the allowance preset, and the
+ * list of mass rows when it sums them). Undefined for a row to analyse afresh.
+ */
+function reusableRows(previous: SheetAnalysis, analysis: SheetAnalysis): (index: number) => AnalysedRow | undefined {
+  if (previous.context.budget?.preset !== analysis.context.budget?.preset) return () => undefined;
+  // Keys whose unit or mass changed, or that only one version has.
+  const changed = new Set<string>();
+  for (const [key, index] of previous.indexOf) {
+    const before = previous.parameters[index];
+    const after = analysis.context.parameterOf(key);
+    if (before === undefined || after === undefined || !sameAsRead(before, after)) changed.add(key);
+  }
+  for (const key of analysis.indexOf.keys()) if (!previous.indexOf.has(key)) changed.add(key);
+  const massBefore = previous.context.massKeys();
+  const massAfter = analysis.context.massKeys();
+  const sameMassRows = massBefore.length === massAfter.length && massBefore.every((key, index) => key === massAfter[index]);
+  return (index) => {
+    const parameter = analysis.parameters[index];
+    if (parameter === undefined || analysis.duplicates.has(index) || changed.has(parameter.key)) return undefined;
+    const row = previous.rows[previous.indexOf.get(parameter.key) ?? -1];
+    const before = row?.parameter;
+    if (row === undefined || before === undefined) return undefined;
+    if (before.value !== parameter.value || before.formula !== parameter.formula) return undefined;
+    if (before.material?.id !== parameter.material?.id || before.material?.property !== parameter.material?.property) return undefined;
+    if (row.dependencies.some((key) => changed.has(key))) return undefined;
+    if (!sameMassRows && mentionsMassTotals(parameter.formula)) return undefined;
+    return { ...row, parameter };
+  };
+}
+
+/** Whether two analyses have the same keys in the same order, each row with the same references: then the same dependency graph. */
+function sameGraph(previous: SheetAnalysis, analysis: SheetAnalysis): boolean {
+  if (previous.rows.length !== analysis.rows.length || previous.duplicates.size > 0 || analysis.duplicates.size > 0) return false;
+  return analysis.rows.every((row, index) => {
+    const before = previous.rows[index];
+    if (before === undefined || before.parameter.key !== row.parameter.key) return false;
+    // Reused rows share their list of references.
+    return before.dependencies === row.dependencies || before.dependencies.join(',') === row.dependencies.join(',');
+  });
+}
+
+/**
+ * Analyses every row of a sheet and builds its dependency graph. With `previous`, an analysis of another
+ * version of the sheet, rows nothing changed for are taken from it instead of being parsed and checked again,
+ * and so is the graph when no reference changed.
+ */
+export function analyseSheet(sheet: Sheet, previous?: SheetAnalysis): SheetAnalysis {
   const indexOf = new Map<string, number>();
   const duplicates = new Set<number>();
   sheet.parameters.forEach((parameter, index) => {
@@ -387,8 +440,13 @@ export function analyseSheet(sheet: Sheet): SheetAnalysis {
       parameters.flatMap((parameter, index) => (parameter.mass !== undefined && !duplicates.has(index) ? [parameter.key] : [])),
   };
   const analysis: SheetAnalysis = { parameters, rows: [], indexOf, graph: buildGraph([], indexOf), context, duplicates };
-  parameters.forEach((_, index) => reanalyseRow(analysis, index));
-  analysis.graph = buildGraph(analysis.rows, indexOf);
+  const reusable = previous === undefined ? undefined : reusableRows(previous, analysis);
+  parameters.forEach((_, index) => {
+    const reused = reusable?.(index);
+    if (reused === undefined) reanalyseRow(analysis, index);
+    else analysis.rows[index] = reused;
+  });
+  analysis.graph = previous !== undefined && sameGraph(previous, analysis) ? previous.graph : buildGraph(analysis.rows, indexOf);
   return analysis;
 }
 

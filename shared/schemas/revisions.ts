@@ -194,3 +194,56 @@ export const evaluationResponseSchema = z.object({
   ]),
 });
 export type EvaluationResponse = z.infer<typeof evaluationResponseSchema>;
+
+/** Text PostgreSQL can store: it refuses the NUL character. */
+const storable = { message: 'must not contain NUL characters' };
+const revisionName = textLine(100).refine((text) => !text.includes('\u0000'), storable);
+const revisionNote = z
+  .string()
+  .trim()
+  .max(4000, { message: 'must be at most 4000 characters' })
+  .refine((text) => !text.includes('\u0000'), storable);
+
+/** POST .../revisions/:revisionId/lock: the working draft locked as a baseline, `label` naming the design review. */
+export const lockBaselineBodySchema = z.object({ label: revisionName, note: revisionNote.default('') }).strict();
+export type LockBaselineBody = z.infer<typeof lockBaselineBodySchema>;
+
+/** POST .../revisions/:revisionId/studies: a study opened from that revision, under a name. */
+export const openStudyBodySchema = z.object({ name: revisionName, note: revisionNote.default('') }).strict();
+export type OpenStudyBody = z.infer<typeof openStudyBodySchema>;
+
+export const studyParamsSchema = z.object({ craftId: idSchema, studyId: idSchema });
+
+/** How a conflict of a promotion is resolved: keep the draft's row, or take the study's. */
+export const mergeSideSchema = z.enum(['draft', 'study']);
+export type MergeSide = z.infer<typeof mergeSideSchema>;
+
+/** POST .../revisions/:studyId/promote: a resolution for every row in conflict, by key (none when there is no conflict). */
+export const promoteStudyBodySchema = z.object({ resolutions: z.record(z.string().min(1).max(100), mergeSideSchema).default({}) }).strict();
+export type PromoteStudyBody = z.infer<typeof promoteStudyBodySchema>;
+
+/** A row as a merge shows it: the sheet's row and its subsystem id. */
+const mergeRowSchema = parameterSchema.and(z.object({ subsystemId: idSchema }));
+
+/**
+ * A row changed in both the draft and the study since the study was opened: as it was then (`base`), in
+ * the draft now and in the study; null where the row is absent.
+ */
+export const mergeConflictSchema = z.object({
+  key: z.string(),
+  base: mergeRowSchema.nullable(),
+  draft: mergeRowSchema.nullable(),
+  study: mergeRowSchema.nullable(),
+});
+export type MergeConflictDto = z.infer<typeof mergeConflictSchema>;
+
+/** The `details` of a 409 merge_conflicts: every conflict, and which of them the request left unresolved. */
+export const mergeConflictDetailsSchema = z.object({ conflicts: z.array(mergeConflictSchema), unresolved: z.array(z.string()) });
+
+/** The answer to a promotion: the study (now locked), the draft, and what was done to the draft's rows. */
+export const promotionSchema = z.object({
+  study: revisionSchema,
+  draft: revisionSchema,
+  applied: z.array(z.object({ key: z.string(), action: z.enum(['create', 'update', 'delete']) })),
+});
+export type Promotion = z.infer<typeof promotionSchema>;
