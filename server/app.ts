@@ -1,4 +1,3 @@
-import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import fs from 'node:fs';
@@ -15,6 +14,7 @@ import { craftsRouter } from './routes/crafts';
 import { openApiDocument } from './openapi';
 import { notificationsRouter } from './routes/notifications';
 import { organisationRouter } from './routes/organisation';
+import { revisionControlRouter } from './routes/revision-control';
 import { sheetsRouter } from './routes/sheets';
 import { templatesRouter } from './routes/templates';
 import type { Mailer } from './services/mailer';
@@ -50,13 +50,13 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use(express.json({ limit: '1mb' }));
-  app.use(cookieParser());
 
   const auth = createAuth({ config, sequelize: deps.sequelize });
-  // A script's access token signs in one request; browsers use the session. Only the API reads either:
-  // the web app's files and pages are the same for everyone, so they cost no lookup in PostgreSQL.
+  // A script's access token signs in one request; browsers use the session, its cookies and CSRF tokens, all
+  // passed over in one step for a token's request. Only the API reads either: the web app's files and pages
+  // are the same for everyone, so they cost no lookup in PostgreSQL.
   app.use('/api', bearerAuth);
-  app.use('/api', unlessBearer(auth.session));
+  app.use('/api', unlessBearer(auth.browser));
 
   // GET /api/health: anyone; 200 when the database answers, 503 database_unavailable when it does not.
   app.get('/api/health', async (_req, res) => {
@@ -72,12 +72,11 @@ export function createApp(deps: AppDeps): Express {
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApi);
   });
-  app.use('/api', unlessBearer(auth.csrfProtection));
   app.use('/api/auth', auth.router);
   app.use('/api/account', requireUser, accountRouter(deps));
   app.use('/api/notifications', requireUser, notificationsRouter(deps));
   app.use('/api/templates', requireUser, templatesRouter());
-  app.use('/api/crafts', requireUser, craftsRouter(deps), sheetsRouter(deps));
+  app.use('/api/crafts', requireUser, craftsRouter(deps), sheetsRouter(deps), revisionControlRouter(deps));
   app.use('/api/organisation', requireUser, organisationRouter(deps));
   app.use('/api', apiNotFound);
 

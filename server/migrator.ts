@@ -2,6 +2,7 @@ import type { QueryInterface, Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import * as foundation from './migrations/0001-foundation';
 import * as revisions from './migrations/0002-revisions';
+import * as baselinesStudiesAudit from './migrations/0003-baselines-studies-audit';
 import * as notifications from './migrations/0004-notifications';
 
 export type Migration = MigrationFn<QueryInterface>;
@@ -10,6 +11,7 @@ export type Migration = MigrationFn<QueryInterface>;
 const migrations = [
   { name: '0001-foundation', ...foundation },
   { name: '0002-revisions', ...revisions },
+  { name: '0003-baselines-studies-audit', ...baselinesStudiesAudit },
   { name: '0004-notifications', ...notifications },
 ];
 

@@ -1,6 +1,8 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
+import { auditListSchema, auditQuerySchema } from '@/shared/schemas/audit';
 import { apiErrorSchema } from '@/shared/schemas/common';
+import { compareQuerySchema, compareResponseSchema } from '@/shared/schemas/compare';
 import { craftListSchema, craftParamsSchema, craftSchema, createCraftBodySchema, updateCraftBodySchema } from '@/shared/schemas/crafts';
 import { memberListSchema, memberParamsSchema, memberSchema, setMemberBodySchema } from '@/shared/schemas/members';
 import {
@@ -15,12 +17,18 @@ import {
   createParameterBodySchema,
   deleteParameterQuerySchema,
   evaluationResponseSchema,
+  lockBaselineBodySchema,
+  openStudyBodySchema,
   parameterParamsSchema,
+  promoteStudyBodySchema,
+  promotionSchema,
   revisionDetailSchema,
   revisionListSchema,
   revisionParameterSchema,
   revisionParamsSchema,
+  revisionSchema,
   sheetEventSchema,
+  studyParamsSchema,
   subsystemBodySchema,
   subsystemParamsSchema,
   subsystemSchema,
@@ -269,6 +277,69 @@ export const documentedRoutes: DocumentedRoute[] = [
     params: revisionParamsSchema,
     ok: { status: 200, schema: evaluationResponseSchema },
     errors: [401, 404],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${craft}/compare`,
+    summary:
+      'Compares two revisions: rows added, removed and changed, every output old and new, and with `output` the changed inputs that moved it, each with its share',
+    params: craftParamsSchema,
+    query: compareQuerySchema,
+    ok: { status: 200, schema: compareResponseSchema },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${revision}/lock`,
+    summary: 'Locks the working draft as a baseline (label, note); the draft continues from it. Chief engineers',
+    params: revisionParamsSchema,
+    body: lockBaselineBodySchema,
+    ok: { status: 201, schema: revisionSchema },
+    errors: [400, 401, 403, 404, 409],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${revision}/studies`,
+    summary: "Opens a study (a named branch the caller owns) from any revision, keeping the source's rows as the merge base",
+    params: revisionParamsSchema,
+    body: openStudyBodySchema,
+    ok: { status: 201, schema: revisionSchema },
+    errors: [400, 401, 403, 404],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${craft}/revisions/{studyId}/promote`,
+    summary:
+      'Promotes a study into the working draft by a row-by-row three-way merge; 409 merge_conflicts lists rows changed in both (`details.conflicts`) until each has a resolution. Chief engineers',
+    params: studyParamsSchema,
+    body: promoteStudyBodySchema,
+    ok: { status: 200, schema: promotionSchema },
+    errors: [400, 401, 403, 404, 409],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${revision}/review.pdf`,
+    summary:
+      'The design review pack of a revision as a PDF download: headline figures, mass budget table and chart, changes since the previous baseline. For readers of the whole sheet',
+    params: revisionParamsSchema,
+    ok: { status: 200, schema: z.string().meta({ format: 'binary' }), contentType: 'application/pdf' },
+    errors: [401, 403, 404],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${craft}/audit`,
+    summary:
+      'The audit log (locks, studies, promotions, role changes, access tokens), newest first; `format=csv` or `Accept: text/csv` exports CSV. Organisation admins and chief engineers',
+    params: craftParamsSchema,
+    query: auditQuerySchema,
+    ok: { status: 200, schema: auditListSchema },
+    errors: [400, 401, 403, 404],
     token: true,
   },
   {

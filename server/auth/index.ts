@@ -1,4 +1,5 @@
-import type { RequestHandler, Router } from 'express';
+import cookieParser from 'cookie-parser';
+import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../env';
 import { createCsrf } from './csrf';
@@ -6,12 +7,12 @@ import { authRouter } from './router';
 import { createPassport, sessionMiddleware } from './session';
 import { googleStrategy, ssoStrategyLoader } from './strategies';
 
-
 export interface Auth {
-  /** Session cookie and passport, in order; mount on /api after cookie-parser, before the API routes. */
-  session: RequestHandler[];
-  /** CSRF check on every state-changing request; mount on /api before the routers. */
-  csrfProtection: RequestHandler;
+  /**
+   * What a browser's request goes through, in one router: cookies, the session and passport, and the CSRF
+   * check on every state-changing request. Mount on /api before the API routes.
+   */
+  browser: Router;
   /** The /api/auth routes. */
   router: Router;
 }
@@ -22,8 +23,7 @@ export function createAuth({ config, sequelize }: { config: Config; sequelize: S
   passport.use(googleStrategy(config));
   const csrf = createCsrf(config);
   return {
-    session: [sessionMiddleware(config, sequelize), passport.initialize(), passport.session()],
-    csrfProtection: csrf.protection,
+    browser: Router().use(cookieParser(), sessionMiddleware(config, sequelize), passport.initialize(), passport.session(), csrf.protection),
     router: authRouter({ config, sequelize, passport, csrf, loadSso: ssoStrategyLoader(passport, config) }),
   };
 }

@@ -31,7 +31,7 @@ export interface StoredRow {
   updatedAt: Date;
 }
 
-/** Each field of StoredRow and the SQL it is read with: one list for the row-by-row and the JSON reads. */
+/** Each field of StoredRow and the SQL it is read with. */
 const rowFields: readonly (readonly [keyof StoredRow, string])[] = [
   ['id', 'p.id'],
   ['subsystemId', 'p.subsystem_id'],
@@ -66,18 +66,43 @@ export function selectRows(sequelize: Sequelize, revisionId: string, transaction
 }
 
 /**
- * A column expression giving the rows of the revision `revisionColumn` names as one JSON array, so the
- * revision and its rows come back in one query (PostgreSQL builds the JSON; Node parses one value).
- * Read the column with `rowsFromJson`.
+ * A column expression giving the rows of the revision `revisionColumn` names, in sheet order, as the text of
+ * a JSON array of `RevisionParameter` (the API's row), written by PostgreSQL: the revision GET sends it to a
+ * reader of the whole sheet as it is, parsing and serialising nothing. It says what `toRevisionParameter`
+ * says (same fields, absent rather than null, `protected` only when true, times as ISO strings in UTC);
+ * tests/server/sheets/revision-read.test.ts holds the two equal.
  */
-export function rowsJsonColumn(revisionColumn: string): string {
-  const fields = rowFields.map(([field, sql]) => `'${field}', ${sql}`).join(', ');
-  return `(SELECT coalesce(json_agg(json_build_object(${fields}) ORDER BY p.position), '[]') FROM ${rowSource} WHERE p.revision_id = ${revisionColumn})`;
+export function parametersJsonColumn(revisionColumn: string): string {
+  // Built as text rather than with json_build_object and json_strip_nulls: PostgreSQL writes it in about half the time.
+  const text = (sql: string) => `to_json(${sql})::text`;
+  const optional = (field: string, json: string) => `coalesce(',"${field}":' || ${json}, '')`;
+  const row = [
+    `'{"key":' || ${text('p.key')} || ',"label":' || ${text('p.label')} || ',"subsystem":' || ${text('s.name')} || ',"unit":' || ${text('p.unit')}`,
+    optional('value', text('p.value')),
+    optional('formula', text('p.formula')),
+    optional('material', 'p.material::text'),
+    optional('note', text('p.note')),
+    optional('source', text('p.source')),
+    optional('mass', 'p.mass::text'),
+    `CASE WHEN p.protected THEN ',"protected":true' ELSE '' END`,
+    optional('role', text('p.role')),
+    `',"subsystemId":"' || p.subsystem_id || '","version":' || p.version`,
+    `',"updatedBy":' || coalesce('{"id":"' || u.id || '","name":' || ${text('u.name')} || '}', 'null')`,
+    `',"updatedAt":"' || to_char(p.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') || '"}'`,
+  ].join(' || ');
+  return `(SELECT '[' || coalesce(string_agg(${row}, ',' ORDER BY p.position), '') || ']' FROM ${rowSource} WHERE p.revision_id = ${revisionColumn})`;
 }
 
-/** The rows of a `rowsJsonColumn` value (JSON gives timestamps as text). */
-export function rowsFromJson(rows: readonly (Omit<StoredRow, 'updatedAt'> & { updatedAt: string })[]): StoredRow[] {
-  return rows.map((row) => ({ ...row, updatedAt: new Date(row.updatedAt) }));
+/**
+ * A column expression giving a stamp of what `parametersJsonColumn` writes for the revision `revisionColumn`
+ * names: a hash of the versions of the table rows it reads (PostgreSQL's `xmin`, the transaction that wrote
+ * each version, of every row, its subsystem and the person who last changed it, in order). Any change to
+ * them, a rename of a subsystem or a person included, writes a new version and so a new stamp; reading the
+ * stamp costs a fraction of writing the JSON.
+ */
+export function parametersStampColumn(revisionColumn: string): string {
+  return `(SELECT md5(coalesce(string_agg(concat_ws(',', p.xmin, s.xmin, u.xmin), ';' ORDER BY p.position), ''))
+     FROM ${rowSource} WHERE p.revision_id = ${revisionColumn})`;
 }
 
 /** The row as the sheet format writes it (no version, no ids). */

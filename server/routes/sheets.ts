@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { compareQuerySchema } from '@/shared/schemas/compare';
 import { craftParamsSchema } from '@/shared/schemas/crafts';
 import {
   createParameterBodySchema,
@@ -12,6 +13,7 @@ import {
 import type { AppDeps } from '../app';
 import { currentUser } from '../middleware/require-user';
 import { validate } from '../middleware/validate';
+import { compareRevisions } from '../services/compare';
 import { createParameter, deleteParameter, updateParameter } from '../services/parameters';
 import { getRevisionDetail, getRevisionEvaluation, listRevisions } from '../services/revisions';
 import { streamSheetEvents } from '../services/sheet-stream';
@@ -33,12 +35,19 @@ export function sheetsRouter({ sequelize, events }: AppDeps): Router {
   // GET /api/crafts/:craftId/revisions/:revisionId: whoever may view the craft (partners: shared rows and
   // headline figures); RevisionDetail; 404.
   router.get('/:craftId/revisions/:revisionId', validate({ params: revisionParamsSchema }), async (req, res) => {
-    res.json(await getRevisionDetail(currentUser(req), req.params.craftId, req.params.revisionId));
+    res.type('json').send(await getRevisionDetail(currentUser(req), req.params.craftId, req.params.revisionId));
   });
 
   // GET /api/crafts/:craftId/revisions/:revisionId/evaluation: as above; EvaluationResponse (partners: what they see); 404.
   router.get('/:craftId/revisions/:revisionId/evaluation', validate({ params: revisionParamsSchema }), async (req, res) => {
     res.json(await getRevisionEvaluation(currentUser(req), req.params.craftId, req.params.revisionId));
+  });
+
+  // GET /api/crafts/:craftId/compare?from=&to=[&output=]: whoever may view the craft (partners: the rows of
+  // the subsystems shared with them); CompareResponse; 400 (a query parameter, or an output with no old or
+  // new value), 404 (a revision of another craft, an output not in `to`).
+  router.get('/:craftId/compare', validate({ params: craftParamsSchema, query: compareQuerySchema }), async (req, res) => {
+    res.json(await compareRevisions(currentUser(req), req.params.craftId, req.query));
   });
 
   // POST /api/crafts/:craftId/revisions/:revisionId/parameters: systems and chief engineers; 201 RevisionParameter;

@@ -98,25 +98,54 @@ export const demoPeople: DemoPerson[] = [
   },
 ];
 
-/** A change a demo person made to Tern's working draft, in order: the seeded history of the sheet. */
-export interface DemoEdit {
-  subject: string;
+/** A change a demo person made to a row, by key. */
+export interface DemoChange {
   key: string;
   change: { value?: string; subsystem?: string; note?: string };
 }
 
 /**
- * Tern's story so far (invented): the systems engineer gives the deployer its own subsystem, the boom owner
- * puts in the lighter boom from the supplier's sample, the sail grows to win back acceleration, and the
- * chief engineer raises the mass allocation after the launch-slot change.
+ * A step of Tern's history, in order: a change to the working draft, the chief engineer locking the draft
+ * as a baseline for a review, or someone opening a study of the draft and changing rows in it.
  */
-export const ternEdits: DemoEdit[] = [
-  { subject: 'demo-amara', key: 'deployer_mass', change: { subsystem: 'Deployer' } },
+export type DemoStep =
+  | ({ kind: 'edit'; subject: string } & DemoChange)
+  | { kind: 'lock'; subject: string; label: string; note: string }
+  | { kind: 'study'; subject: string; name: string; note: string; changes: DemoChange[] };
+
+/**
+ * Tern's story so far (invented): the systems engineer gives the deployer its own subsystem and the boom
+ * owner puts in the lighter boom from the supplier's sample; the chief engineer locks that as the "PDR"
+ * baseline for the preliminary design review. Since then the sail has grown to win back acceleration and
+ * the mass allocation was raised after the launch-slot change, and the boom owner is trying a lighter
+ * deployer hinge in a study of his own.
+ */
+export const ternStory: DemoStep[] = [
+  { kind: 'edit', subject: 'demo-amara', key: 'deployer_mass', change: { subsystem: 'Deployer' } },
   {
+    kind: 'edit',
     subject: 'demo-kenji',
     key: 'boom_linear_density',
     change: { value: '15 g/m', note: 'Sample boom from the supplier, weighed on receipt.' },
   },
-  { subject: 'demo-amara', key: 'sail_side', change: { value: '45 m' } },
-  { subject: 'demo-tomas', key: 'mass_allocation', change: { value: '38 kg', note: 'Raised after the move to the larger launch slot.' } },
+  {
+    kind: 'lock',
+    subject: 'demo-tomas',
+    label: 'PDR',
+    note: 'Preliminary design review: 40 m sail, sample booms, 35 kg allocation.',
+  },
+  { kind: 'edit', subject: 'demo-amara', key: 'sail_side', change: { value: '45 m' } },
+  {
+    kind: 'edit',
+    subject: 'demo-tomas',
+    key: 'mass_allocation',
+    change: { value: '38 kg', note: 'Raised after the move to the larger launch slot.' },
+  },
+  {
+    kind: 'study',
+    subject: 'demo-kenji',
+    name: 'Lighter deployer hinge',
+    note: "The deployer vendor's hinge redesign, before it is qualified.",
+    changes: [{ key: 'deployer_mass', change: { value: '4.2 kg', note: 'Vendor estimate for the redesigned hinge, not yet weighed.' } }],
+  },
 ];

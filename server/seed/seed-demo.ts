@@ -1,15 +1,17 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { findTemplate, instantiateTemplate } from '@/shared/templates';
 import { Craft, Membership, Organisation, User } from '../models';
+import { lockBaseline } from '../services/baselines';
 import { updateParameter } from '../services/parameters';
 import { createDraft, draftIdOf, ensureSubsystems } from '../services/sheet-store';
+import { openStudy } from '../services/studies';
 import { selectRows } from '../models/sheet-rows';
-import { demoCrafts, demoOrganisations, demoPeople, ternEdits } from './demo-scenario';
+import { demoCrafts, demoOrganisations, demoPeople, ternStory, type DemoChange } from './demo-scenario';
 
 /**
  * Seeds the invented demo scenario. Idempotent: existing rows are found by their natural keys and kept; a
- * craft without a working draft gets one from the square-sail template, and Tern's history of edits is
- * replayed (through the same service as the API) only while its draft has none.
+ * craft without a working draft gets one from the square-sail template, and Tern's history (edits, the
+ * PDR baseline, a study) is replayed through the API's own services only while its draft has none.
  */
 export async function seedDemo(sequelize: Sequelize): Promise<void> {
   const template = findTemplate('square-sail');
@@ -64,7 +66,14 @@ export async function seedDemo(sequelize: Sequelize): Promise<void> {
   await replayTernHistory(sequelize, craftIds.corvid);
 }
 
-/** Applies Tern's demo edits as their people, through the API's own service, while the draft has no history. */
+/** Applies a demo change to a row of a revision as the person, through the API's own service. */
+async function applyChange(sequelize: Sequelize, user: User, craftId: string, revisionId: string, { key, change }: DemoChange) {
+  const row = (await selectRows(sequelize, revisionId)).find((candidate) => candidate.key === key);
+  if (!row) throw new Error(`the demo change names no row "${key}"`);
+  await updateParameter(sequelize, user, craftId, revisionId, key, { version: row.version, ...change });
+}
+
+/** Plays Tern's story as its people, through the API's own services, while the draft has no history. */
 async function replayTernHistory(sequelize: Sequelize, craftId: string) {
   const draftId = await draftIdOf(sequelize, craftId);
   if (draftId === null) return;
@@ -73,11 +82,14 @@ async function replayTernHistory(sequelize: Sequelize, craftId: string) {
     type: QueryTypes.SELECT,
   });
   if (recorded?.count !== '0') return;
-  for (const edit of ternEdits) {
-    const email = demoPeople.find((person) => person.subject === edit.subject)?.email ?? '';
+  for (const step of ternStory) {
+    const email = demoPeople.find((person) => person.subject === step.subject)?.email ?? '';
     const user = await User.findOne({ where: { email }, rejectOnEmpty: true });
-    const row = (await selectRows(sequelize, draftId)).find((candidate) => candidate.key === edit.key);
-    if (!row) throw new Error(`the demo edit names no row "${edit.key}"`);
-    await updateParameter(sequelize, user, craftId, draftId, edit.key, { version: row.version, ...edit.change });
+    if (step.kind === 'edit') await applyChange(sequelize, user, craftId, draftId, step);
+    else if (step.kind === 'lock') await lockBaseline(sequelize, user, craftId, draftId, { label: step.label, note: step.note });
+    else {
+      const study = await openStudy(sequelize, user, craftId, draftId, { name: step.name, note: step.note });
+      for (const change of step.changes) await applyChange(sequelize, user, craftId, study.id, change);
+    }
   }
 }

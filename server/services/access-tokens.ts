@@ -1,8 +1,10 @@
 import crypto from 'node:crypto';
-import { QueryTypes } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { AccessToken as AccessTokenDto, CreateTokenBody, TokenScope } from '@/shared/schemas/tokens';
 import { notFound } from '../http-error';
 import { AccessToken, Organisation, User } from '../models';
+import { preparedQuery } from '../models/prepared-query';
+import { recordAudit } from './audit';
 
 const SECRET_PREFIX = 'tsk_';
 const PREFIX_LENGTH = SECRET_PREFIX.length + 6;
@@ -32,24 +34,46 @@ export async function listTokens(user: User): Promise<AccessTokenDto[]> {
   return tokens.map(toTokenDto);
 }
 
-/** Creates a token; the secret is returned this once and only its hash is stored. */
+/** Runs a change of one of the person's tokens and its audit entry in one transaction. */
+function auditedTokenChange(
+  user: User,
+  action: 'token_created' | 'token_revoked',
+  change: (transaction: Transaction) => Promise<AccessToken>,
+): Promise<AccessToken> {
+  const sequelize = AccessToken.sequelize;
+  if (!sequelize) throw new Error('access tokens: the models are not initialised on a connection');
+  return sequelize.transaction(async (transaction) => {
+    const token = await change(transaction);
+    await recordAudit(sequelize, transaction, {
+      organisationId: user.organisationId,
+      craftId: null,
+      actorId: user.id,
+      action,
+      subject: token.name,
+      details: { tokenId: token.id, scope: token.scope, prefix: token.prefix },
+    });
+    return token;
+  });
+}
+
+/** Creates a token; the secret is returned this once and only its hash is stored. The audit log notes it. */
 export async function createToken(user: User, body: CreateTokenBody): Promise<{ token: AccessTokenDto; secret: string }> {
   const secret = `${SECRET_PREFIX}${crypto.randomBytes(32).toString('base64url')}`;
-  const token = await AccessToken.create({
-    userId: user.id,
-    name: body.name,
-    scope: body.scope,
-    tokenHash: hashSecret(secret),
-    prefix: secret.slice(0, PREFIX_LENGTH),
-  });
+  const token = await auditedTokenChange(user, 'token_created', (transaction) =>
+    AccessToken.create(
+      { userId: user.id, name: body.name, scope: body.scope, tokenHash: hashSecret(secret), prefix: secret.slice(0, PREFIX_LENGTH) },
+      { transaction },
+    ),
+  );
   return { token: toTokenDto(token), secret };
 }
 
-/** Revokes one of the person's tokens (404 for anyone else's); revoking twice is harmless. */
+/** Revokes one of the person's tokens (404 for anyone else's); revoking twice is harmless. The audit log notes it. */
 export async function revokeToken(user: User, tokenId: string): Promise<void> {
   const token = await AccessToken.findOne({ where: { id: tokenId, userId: user.id } });
   if (!token) throw notFound('Token');
-  if (!token.revokedAt) await token.update({ revokedAt: new Date() });
+  if (!token.revokedAt)
+    await auditedTokenChange(user, 'token_revoked', (transaction) => token.update({ revokedAt: new Date() }, { transaction }));
 }
 
 /**
@@ -59,14 +83,15 @@ export async function revokeToken(user: User, tokenId: string): Promise<void> {
 export async function findTokenUser(secret: string): Promise<{ user: User; token: { id: string; scope: TokenScope } } | null> {
   const sequelize = AccessToken.sequelize;
   if (!sequelize) throw new Error('findTokenUser: the models are not initialised on a connection');
-  const [found] = await sequelize.query<TokenOwnerRecord>(
+  const [found] = await preparedQuery<TokenOwnerRecord>(
+    sequelize,
     `SELECT t.id AS "tokenId", t.scope, t.last_used_at AS "lastUsedAt", t.revoked_at AS "revokedAt",
             u.id, u.organisation_id AS "organisationId", u.email, u.name, u.is_org_admin AS "isOrgAdmin",
             u.created_at AS "createdAt", u.updated_at AS "updatedAt", o.name AS "organisationName", o.slug AS "organisationSlug",
             o.created_at AS "organisationCreatedAt", o.updated_at AS "organisationUpdatedAt"
      FROM access_tokens t JOIN users u ON u.id = t.user_id JOIN organisations o ON o.id = u.organisation_id
      WHERE t.token_hash = $1`,
-    { bind: [hashSecret(secret)], type: QueryTypes.SELECT },
+    [hashSecret(secret)],
   );
   if (!found || found.revokedAt !== null) return null;
   if (found.lastUsedAt === null || Date.now() - found.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {

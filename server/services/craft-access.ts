@@ -1,8 +1,8 @@
 import { mayOnCraft, type CraftAction, type Who } from '@/shared/access/permissions';
 import type { CraftRole } from '@/shared/schemas/roles';
-import { QueryTypes } from 'sequelize';
 import { forbidden, notFound } from '../http-error';
 import { Craft, type User } from '../models';
+import { preparedQuery } from '../models/prepared-query';
 
 /** A craft as one person sees it: their role, admin flag and the subsystems their membership names. */
 export interface CraftAccess extends Who {
@@ -10,6 +10,7 @@ export interface CraftAccess extends Who {
   role: CraftRole | null;
   isOrgAdmin: boolean;
   subsystemIds: string[];
+  userId: string;
 }
 
 /**
@@ -17,8 +18,25 @@ export interface CraftAccess extends Who {
  * its own binds as $4, $5, ... A hot path saves a round trip to PostgreSQL this way.
  */
 export interface AlongWithCraft {
+  /** A constant: the access query is prepared once for each. */
   sql: string;
   binds: unknown[];
+}
+
+/** The access query's text for each further column, built once (the same text every time is one prepared statement). */
+const craftAccessSqlByAlong = new Map<string, string>();
+
+function craftAccessSql(alongSql = 'NULL'): string {
+  let sql = craftAccessSqlByAlong.get(alongSql);
+  if (sql === undefined) {
+    sql = `SELECT c.id, c.organisation_id AS "organisationId", c.created_by_id AS "createdById", c.name, c.description,
+                  c.template_id AS "templateId", c.created_at AS "createdAt", c.updated_at AS "updatedAt",
+                  m.role, m.subsystem_ids AS "subsystemIds", ${alongSql} AS extra
+           FROM crafts c LEFT JOIN memberships m ON m.craft_id = c.id AND m.user_id = $2
+           WHERE c.id = $1 AND c.organisation_id = $3`;
+    craftAccessSqlByAlong.set(alongSql, sql);
+  }
+  return sql;
 }
 
 /**
@@ -29,18 +47,16 @@ export interface AlongWithCraft {
 export async function loadCraftAccess(user: User, craftId: string, along?: AlongWithCraft): Promise<CraftAccess & { extra: unknown }> {
   const sequelize = Craft.sequelize;
   if (!sequelize) throw new Error('loadCraftAccess: the models are not initialised on a connection');
-  const [found] = await sequelize.query<CraftAccessRecord>(
-    `SELECT c.id, c.organisation_id AS "organisationId", c.created_by_id AS "createdById", c.name, c.description,
-            c.template_id AS "templateId", c.created_at AS "createdAt", c.updated_at AS "updatedAt",
-            m.role, m.subsystem_ids AS "subsystemIds", ${along?.sql ?? 'NULL'} AS extra
-     FROM crafts c LEFT JOIN memberships m ON m.craft_id = c.id AND m.user_id = $2
-     WHERE c.id = $1 AND c.organisation_id = $3`,
-    { bind: [craftId, user.id, user.organisationId, ...(along?.binds ?? [])], type: QueryTypes.SELECT },
-  );
+  const [found] = await preparedQuery<CraftAccessRecord>(sequelize, craftAccessSql(along?.sql), [
+    craftId,
+    user.id,
+    user.organisationId,
+    ...(along?.binds ?? []),
+  ]);
   if (!found || (found.role === null && !user.isOrgAdmin)) throw notFound('Craft');
   const { role, subsystemIds, extra, ...columns } = found;
   const craft = Craft.build(columns, { isNewRecord: false, raw: true });
-  return { craft, role, isOrgAdmin: user.isOrgAdmin, subsystemIds: subsystemIds ?? [], extra };
+  return { craft, role, isOrgAdmin: user.isOrgAdmin, subsystemIds: subsystemIds ?? [], userId: user.id, extra };
 }
 
 interface CraftAccessRecord {

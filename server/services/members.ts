@@ -2,16 +2,50 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { Member, SetMemberBody } from '@/shared/schemas/members';
 import { HttpError, notFound } from '../http-error';
 import { Craft, Membership, User } from '../models';
+import { recordAudit } from './audit';
 import { authorizeCraft } from './craft-access';
 import { selectSubsystems, type SubsystemRecord } from './sheet-store';
 
 /** Roles whose membership names subsystems: the ones an owner edits, or the ones shared with a partner. */
 const rolesWithSubsystems: ReadonlySet<SetMemberBody['role']> = new Set(['subsystem_owner', 'partner']);
 
+/** The names of the subsystems a membership names (memberships hold ids; the API speaks names, as the member editor does). */
+function subsystemNames(subsystemIds: readonly string[], subsystems: readonly SubsystemRecord[]): string[] {
+  return subsystems.filter((subsystem) => subsystemIds.includes(subsystem.id)).map((subsystem) => subsystem.name);
+}
+
 function toMemberDto(membership: Membership, user: User, subsystems: readonly SubsystemRecord[]): Member {
-  // Memberships hold subsystem ids; the API speaks names, as the member editor does.
-  const names = subsystems.filter((subsystem) => membership.subsystemIds.includes(subsystem.id)).map((subsystem) => subsystem.name);
-  return { userId: user.id, name: user.name, email: user.email, role: membership.role, subsystems: names };
+  return {
+    userId: user.id,
+    name: user.name,
+    email: user.email,
+    role: membership.role,
+    subsystems: subsystemNames(membership.subsystemIds, subsystems),
+  };
+}
+
+/** A person's standing on the craft for the audit log: role and subsystems by name, or null when not a member. */
+type Standing = { role: Membership['role']; subsystems: string[] } | null;
+
+function standingOfMembership(membership: Membership | null, subsystems: readonly SubsystemRecord[]): Standing {
+  return membership === null ? null : { role: membership.role, subsystems: subsystemNames(membership.subsystemIds, subsystems) };
+}
+
+/** Records a change of a person's role (joining: before null; leaving: after null) in the audit log, unless nothing changed. */
+async function recordRoleChange(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  change: { craft: Craft; actor: User; person: Pick<User, 'id' | 'name'>; before: Standing; after: Standing },
+) {
+  if (JSON.stringify(change.before) === JSON.stringify(change.after)) return;
+  await recordAudit(sequelize, transaction, {
+    organisationId: change.craft.organisationId,
+    craftId: change.craft.id,
+    actorId: change.actor.id,
+    action: 'role_changed',
+    subject: change.person.name,
+    details: { userId: change.person.id, before: change.before, after: change.after },
+  });
 }
 
 /** The craft's members with their roles, by name. */
@@ -59,21 +93,32 @@ export async function setMember(sequelize: Sequelize, user: User, craftId: strin
   const subsystemIds = rolesWithSubsystems.has(body.role) ? subsystemIdsOf(body.subsystems, subsystems) : [];
   const membership = await changeMemberships(sequelize, craftId, async (transaction) => {
     const existing = await Membership.findOne({ where: { craftId, userId: person.id }, transaction });
-    if (!existing) return Membership.create({ craftId, userId: person.id, role: body.role, subsystemIds }, { transaction });
-    if (body.role !== 'chief_engineer') await keepOneChiefEngineer(existing, transaction);
-    return existing.update({ role: body.role, subsystemIds }, { transaction });
+    const before = standingOfMembership(existing, subsystems);
+    if (existing && body.role !== 'chief_engineer') await keepOneChiefEngineer(existing, transaction);
+    const saved = existing
+      ? await existing.update({ role: body.role, subsystemIds }, { transaction })
+      : await Membership.create({ craftId, userId: person.id, role: body.role, subsystemIds }, { transaction });
+    await recordRoleChange(sequelize, transaction, { craft, actor: user, person, before, after: standingOfMembership(saved, subsystems) });
+    return saved;
   });
   return toMemberDto(membership, person, subsystems);
 }
 
 /** Takes a person off the craft. */
 export async function removeMember(sequelize: Sequelize, user: User, craftId: string, memberId: string): Promise<void> {
-  await authorizeCraft(user, craftId, 'manageMembers');
+  const { craft } = await authorizeCraft(user, craftId, 'manageMembers');
+  const subsystems = await selectSubsystems(sequelize, craftId);
   await changeMemberships(sequelize, craftId, async (transaction) => {
-    const membership = await Membership.findOne({ where: { craftId, userId: memberId }, transaction });
-    if (!membership) throw notFound('Member');
+    const membership = await Membership.findOne({
+      where: { craftId, userId: memberId },
+      include: [{ model: User, as: 'user' }],
+      transaction,
+    });
+    if (!membership?.user) throw notFound('Member');
     await keepOneChiefEngineer(membership, transaction);
     await membership.destroy({ transaction });
+    const before = standingOfMembership(membership, subsystems);
+    await recordRoleChange(sequelize, transaction, { craft, actor: user, person: membership.user, before, after: null });
   });
 }
 

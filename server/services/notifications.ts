@@ -81,6 +81,22 @@ export async function ownersOfSubsystems(
   return owners.map((owner) => owner.userId);
 }
 
+/**
+ * Tells the owners of the subsystems a baseline or a promotion touched, mailed at once (a lock and a
+ * promotion are rare and matter to each owner).
+ */
+export async function notifySubsystemOwners(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  event: Omit<NotificationDraft, 'userIds'> & { subsystemIds: readonly string[] },
+): Promise<void> {
+  const { subsystemIds, ...draft } = event;
+  await notify(sequelize, transaction, {
+    ...draft,
+    userIds: await ownersOfSubsystems(sequelize, transaction, draft.craftId, subsystemIds),
+  });
+}
+
 /** A row as the history holds it, in words: its formula, or its value and unit. */
 function rowInWords(row: unknown): string {
   const fields = (row ?? {}) as { formula?: string; value?: number; unit?: string; material?: { id: string; property: string } };

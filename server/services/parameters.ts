@@ -1,6 +1,6 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import { mayOnRow, whyNotOnRow, type RevisionStanding, type RowAction } from '@/shared/access/permissions';
-import { evaluateSheet, parseUnit, valueInRowUnit, type EngineErrorCode } from '@/shared/engine';
+import { mayOnRow, standingOf, whyNotOnRow, type RevisionStanding, type RowAction } from '@/shared/access/permissions';
+import { evaluateSheet, parseUnit, valueInRowUnit, type EngineError, type EngineErrorCode } from '@/shared/engine';
 import { parseFormula, referencedKeys } from '@/shared/engine/formula-parser';
 import type { CreateParameterBody, RevisionParameter, UpdateParameterBody } from '@/shared/schemas/revisions';
 import { parameterSchema, type Parameter, type Sheet } from '@/shared/schemas/sheet';
@@ -80,7 +80,7 @@ async function writeRevision<T>(
       transaction,
       user,
       who,
-      standing: { kind: revision.kind, state: revision.state },
+      standing: standingOf(revision),
       header: sheetHeaderOf(revision),
       rows,
       subsystems,
@@ -164,15 +164,17 @@ function checkParameter(parameter: Parameter, field: string): Parameter {
 }
 
 /**
- * Evaluates the sheet before and after the change with the shared engine and refuses (400, the engine's
- * code, naming the row) any error of the refused kinds that the change introduces, in the changed row or
- * in a row it breaks.
+ * Evaluates the sheet before and after a change with the shared engine: the first error of the refused
+ * kinds that the change introduces, in a changed row or in a row it breaks; undefined when there is none.
  */
-function refuseNewErrors(before: Sheet, after: Sheet, field: string) {
+export function introducedError(before: Sheet, after: Sheet): EngineError | undefined {
   const existing = new Set(evaluateSheet(before).errors.map((error) => `${error.key}\u0000${error.code}`));
-  const introduced = evaluateSheet(after).errors.find(
-    (error) => refusedCodes.has(error.code) && !existing.has(`${error.key}\u0000${error.code}`),
-  );
+  return evaluateSheet(after).errors.find((error) => refusedCodes.has(error.code) && !existing.has(`${error.key}\u0000${error.code}`));
+}
+
+/** Refuses (400, the engine's code, naming the row) a change that introduces an error of the refused kinds. */
+function refuseNewErrors(before: Sheet, after: Sheet, field: string) {
+  const introduced = introducedError(before, after);
   if (introduced) throw new HttpError(400, introduced.code, introduced.message, [{ path: field, message: introduced.message }]);
 }
 

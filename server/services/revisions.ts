@@ -1,19 +1,25 @@
 import type { Sequelize } from 'sequelize';
-import { mayOnAnyRow, mayOnCraft, mayOnRow, type RevisionStanding, type Who } from '@/shared/access/permissions';
+import { mayOnAnyRow, mayOnCraft, mayOnRow, standingOf, type RevisionStanding, type Who } from '@/shared/access/permissions';
 import { headlineFigures, sheetMassBudget } from '@/shared/analyses';
 import { evaluateSheet } from '@/shared/engine';
-import type { EvaluationResponse, Revision as RevisionDto, RevisionAbilities, RevisionDetail } from '@/shared/schemas/revisions';
+import type {
+  EvaluationResponse,
+  Revision as RevisionDto,
+  RevisionAbilities,
+  RevisionDetail,
+  RevisionParameter,
+} from '@/shared/schemas/revisions';
 import type { Sheet } from '@/shared/schemas/sheet';
 import type { User } from '../models';
-import { rowsFromJson, type StoredRow } from '../models/sheet-rows';
 import { authorizeCraft, type CraftAccess } from './craft-access';
 import {
-  revisionFromJson,
-  revisionJsonColumn,
+  revisionAlongWithCraft,
+  revisionDetailJson,
+  revisionFromAlong,
   selectRevisions,
-  sheetOf,
+  sheetHeaderOf,
+  sheetOfParameters,
   toRevisionDto,
-  toRevisionParameter,
   type SubsystemRecord,
 } from './sheet-store';
 
@@ -35,31 +41,43 @@ export function abilitiesIn(who: Who, standing: RevisionStanding, subsystems: re
   };
 }
 
-interface ReadableRevision {
+/** A revision loaded for reading, with who reads it and the rows they may see. */
+export interface ReadableRevision {
   who: CraftAccess;
   standing: RevisionStanding;
-  revision: ReturnType<typeof revisionFromJson>;
-  rows: StoredRow[];
-  visibleRows: StoredRow[];
-  /** The whole sheet in the documented format, built on demand (the detail of a full reader does not need it). */
+  revision: Awaited<ReturnType<typeof revisionFromAlong>>['revision'];
+  /** Every row in the API's format, as UTF-8 JSON text written by PostgreSQL. */
+  parametersJson: Buffer;
+  /** Whether the person may see the rows of every subsystem of the craft, and so every row. */
+  seesEveryRow: boolean;
+  /** Every row, parsed on demand (the detail for a reader of every row sends `parametersJson` as it is). */
+  rows: () => RevisionParameter[];
+  visibleRows: () => RevisionParameter[];
+  /** The whole sheet in the documented format, built on demand. */
   sheet: () => Sheet;
 }
 
 /** Loads a revision for reading: craft access, the revision, its subsystems and rows in one query. */
-async function readRevision(user: User, craftId: string, revisionId: string): Promise<ReadableRevision> {
-  const who = await authorizeCraft(user, craftId, 'viewCraft', { sql: revisionJsonColumn('$4'), binds: [revisionId] });
-  const revision = revisionFromJson(who.extra);
-  const rows = rowsFromJson(revision.rows ?? []);
-  const standing = { kind: revision.kind, state: revision.state };
-  const visibleRows = rows.filter((row) => mayOnRow('viewRow', who, row, standing));
-  return { who, standing, revision, rows, visibleRows, sheet: () => sheetOf(revision, rows) };
+export async function readRevision(user: User, craftId: string, revisionId: string): Promise<ReadableRevision> {
+  const who = await authorizeCraft(user, craftId, 'viewCraft', revisionAlongWithCraft(revisionId));
+  const { revision, parametersJson } = await revisionFromAlong(who.extra);
+  const standing = standingOf(revision);
+  // Every row belongs to one of the craft's subsystems (writes name them by the craft's own ids).
+  const seesEveryRow = (revision.subsystems ?? []).every((subsystem) => mayOnRow('viewRow', who, { subsystemId: subsystem.id }, standing));
+  let parsed: RevisionParameter[] | undefined;
+  const rows = () => (parsed ??= JSON.parse(parametersJson.toString()) as RevisionParameter[]);
+  const visibleRows = () => (seesEveryRow ? rows() : rows().filter((row) => mayOnRow('viewRow', who, row, standing)));
+  return { who, standing, revision, parametersJson, seesEveryRow, rows, visibleRows, sheet: () => sheetOfParameters(revision, rows()) };
 }
 
 /**
  * What a reader who does not see every row gets computed here over the whole sheet: the headline figures,
  * and the values of the rows they see (so their formulas show numbers, not references to rows they cannot see).
  */
-function partialReaderFigures(sheet: Sheet, visibleRows: readonly StoredRow[]): Pick<RevisionDetail, 'headlineFigures' | 'serverValues'> {
+function partialReaderFigures(
+  sheet: Sheet,
+  visibleRows: readonly RevisionParameter[],
+): Pick<RevisionDetail, 'headlineFigures' | 'serverValues'> {
   const evaluation = evaluateSheet(sheet);
   return {
     headlineFigures: headlineFigures(sheet, evaluation).map(({ value, ...figure }) => ({ ...figure, value: value ?? null })),
@@ -73,22 +91,24 @@ function partialReaderFigures(sheet: Sheet, visibleRows: readonly StoredRow[]): 
 }
 
 /**
- * The revision and its sheet in the documented format, each row with its version; partners get only the
- * rows shared with them and the headline figures computed on the server.
+ * The revision and its sheet in the documented format, each row with its version, as UTF-8 JSON (a
+ * `RevisionDetail`); partners get only the rows shared with them and the headline figures computed on the
+ * server. Whoever sees every row gets the rows as PostgreSQL wrote them, without parsing them here.
  */
-export async function getRevisionDetail(user: User, craftId: string, revisionId: string): Promise<RevisionDetail> {
+export async function getRevisionDetail(user: User, craftId: string, revisionId: string): Promise<Buffer> {
   const readable = await readRevision(user, craftId, revisionId);
-  const { who, standing, revision, visibleRows } = readable;
+  const { who, standing, revision } = readable;
   const subsystems = revision.subsystems ?? [];
   const abilities = abilitiesIn(who, standing, subsystems);
   const visibleSubsystems = abilities.wholeSheet ? subsystems : subsystems.filter((subsystem) => who.subsystemIds?.includes(subsystem.id));
-  return {
+  const detail = {
     revision: toRevisionDto(revision),
-    sheet: { ...sheetOf(revision, []), parameters: visibleRows.map(toRevisionParameter) },
+    sheet: sheetHeaderOf(revision),
     subsystems: visibleSubsystems,
     abilities,
-    ...(abilities.wholeSheet ? {} : partialReaderFigures(readable.sheet(), visibleRows)),
+    ...(abilities.wholeSheet ? {} : partialReaderFigures(readable.sheet(), readable.visibleRows())),
   };
+  return revisionDetailJson(detail, readable.seesEveryRow ? readable.parametersJson : Buffer.from(JSON.stringify(readable.visibleRows())));
 }
 
 /**
@@ -98,7 +118,8 @@ export async function getRevisionDetail(user: User, craftId: string, revisionId:
  */
 export async function getRevisionEvaluation(user: User, craftId: string, revisionId: string): Promise<EvaluationResponse> {
   const readable = await readRevision(user, craftId, revisionId);
-  const { rows, visibleRows } = readable;
+  const rows = readable.rows();
+  const visibleRows = readable.visibleRows();
   const sheet = readable.sheet();
   const evaluation = evaluateSheet(sheet);
   const budget = sheetMassBudget(sheet, evaluation);
@@ -111,7 +132,7 @@ export async function getRevisionEvaluation(user: User, craftId: string, revisio
   };
   if (visibleRows.length === rows.length) return response;
   const visibleKeys = new Set(visibleRows.map((row) => row.key));
-  const visibleSubsystemNames = new Set(visibleRows.map((row) => row.subsystemName));
+  const visibleSubsystemNames = new Set(visibleRows.map((row) => row.subsystem));
   return {
     values: Object.fromEntries(Object.entries(response.values).filter(([key]) => visibleKeys.has(key))),
     errors: response.errors.filter((error) => visibleKeys.has(error.key)),

@@ -1,9 +1,12 @@
 import crypto from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { Revision as RevisionDto, RevisionParameter } from '@/shared/schemas/revisions';
+import type { RevisionDetail, Revision as RevisionDto, RevisionParameter } from '@/shared/schemas/revisions';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { notFound } from '../http-error';
-import { insertRows, rowsFromJson, rowsJsonColumn, selectRows, toParameter, type StoredRow } from '../models/sheet-rows';
+import { Revision } from '../models';
+import { preparedQuery } from '../models/prepared-query';
+import type { AlongWithCraft } from './craft-access';
+import { insertRows, parametersJsonColumn, parametersStampColumn, selectRows, toParameter, type StoredRow } from '../models/sheet-rows';
 
 /** A craft's subsystem as stored. */
 export interface SubsystemRecord {
@@ -63,9 +66,8 @@ interface RevisionRecord {
   lockedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
-  /** The craft's subsystems and the revision's rows, when asked for (`withContent`): read in the same query. */
+  /** The craft's subsystems, when read with the revision (`revisionAlongWithCraft`). */
   subsystems?: SubsystemRecord[];
-  rows?: Parameters<typeof rowsFromJson>[0];
 }
 
 const revisionColumns = `
@@ -108,26 +110,86 @@ export async function selectRevision(
 }
 
 /**
- * A column expression (for `loadCraftAccess`'s `along`) giving the revision `revisionBind` names, of the
- * craft `c`, as JSON with the craft's subsystems and the revision's rows: the revision GET reads craft
- * access, revision and rows in one query. Read it with `revisionFromJson`; null when there is no such revision.
+ * The revision $4 of the craft `c` as JSON, with the craft's subsystems and the stamp of its rows
+ * (`parametersStampColumn`); null when the craft has no such revision.
  */
-export function revisionJsonColumn(revisionBind: string): string {
-  return `(SELECT row_to_json(found) FROM (SELECT ${revisionColumns}, ${subsystemsJsonColumn} AS subsystems, ${rowsJsonColumn('r.id')} AS rows
-     FROM ${revisionSource} WHERE r.id = ${revisionBind} AND r.craft_id = c.id) AS found)`;
+const revisionAlongSql = `(SELECT row_to_json(found) FROM (SELECT ${revisionColumns}, ${subsystemsJsonColumn} AS subsystems,
+    ${parametersStampColumn('r.id')} AS "rowsStamp" FROM ${revisionSource} WHERE r.id = $4 AND r.craft_id = c.id) AS found)`;
+
+/**
+ * What `loadCraftAccess` reads along with the craft for a revision GET: the revision, its subsystems and the
+ * stamp of its rows, so that craft access and revision take one query. Read it with `revisionFromAlong`.
+ */
+export function revisionAlongWithCraft(revisionId: string): AlongWithCraft {
+  return { sql: revisionAlongSql, binds: [revisionId] };
+}
+
+/** A revision's rows in the API's format as UTF-8 JSON (`parametersJsonColumn`), and the stamp they were written at. */
+interface RowsJson {
+  stamp: string;
+  json: Buffer;
+}
+
+const rowsJsonSql = `SELECT ${parametersStampColumn('$1::uuid')} AS stamp, ${parametersJsonColumn('$1::uuid')} AS json`;
+
+/**
+ * The rows of recently read revisions, by revision id. A revision GET compares the stamp its one query read
+ * (in the snapshot of the access check) with the stamp of the rows held here, and has PostgreSQL write the
+ * rows again, in a second statement, only when they differ: held rows are never sent once the table rows
+ * they were written from have changed. Least recently read revisions go first beyond the budget.
+ */
+const rowsCache = new Map<string, RowsJson>();
+const ROWS_CACHE_BYTES = 32 * 1024 * 1024;
+let rowsCacheBytes = 0;
+
+function keepRows(revisionId: string, rows: RowsJson): void {
+  const previous = rowsCache.get(revisionId);
+  if (previous) rowsCacheBytes -= previous.json.length;
+  rowsCache.delete(revisionId);
+  rowsCache.set(revisionId, rows);
+  rowsCacheBytes += rows.json.length;
+  for (const [oldest, { json }] of rowsCache) {
+    if (rowsCacheBytes <= ROWS_CACHE_BYTES) break;
+    rowsCache.delete(oldest);
+    rowsCacheBytes -= json.length;
+  }
+}
+
+/** The revision's rows as UTF-8 JSON: those held here when their stamp is `stamp`, else written afresh (and held). */
+async function rowsJsonAt(revisionId: string, stamp: string): Promise<Buffer> {
+  const held = rowsCache.get(revisionId);
+  if (held?.stamp === stamp) {
+    rowsCache.delete(revisionId);
+    rowsCache.set(revisionId, held);
+    return held.json;
+  }
+  const sequelize = Revision.sequelize;
+  if (!sequelize) throw new Error('rowsJsonAt: the models are not initialised on a connection');
+  // Read a moment after the revision record: rows changed in between come out newer than it, never older.
+  const [written] = await preparedQuery<{ stamp: string; json: string }>(sequelize, rowsJsonSql, [revisionId]);
+  if (!written) throw notFound('Revision');
+  const rows = { stamp: written.stamp, json: Buffer.from(written.json) };
+  keepRows(revisionId, rows);
+  return rows.json;
 }
 
 type Timestamps = 'createdAt' | 'updatedAt' | 'lockedAt';
 
-/** A revision read by `revisionJsonColumn` (JSON gives timestamps as text); 404 when there was none. */
-export function revisionFromJson(json: unknown): RevisionRecord {
-  if (json === null || typeof json !== 'object') throw notFound('Revision');
-  const revision = json as Omit<RevisionRecord, Timestamps> & Record<Timestamps, string | null>;
+/**
+ * The revision read by `revisionAlongWithCraft` (JSON gives timestamps as text), and its rows as UTF-8 JSON
+ * text; 404 when there was none.
+ */
+export async function revisionFromAlong(extra: unknown): Promise<{ revision: RevisionRecord; parametersJson: Buffer }> {
+  if (extra === null || typeof extra !== 'object') throw notFound('Revision');
+  const { rowsStamp, ...revision } = extra as Omit<RevisionRecord, Timestamps> & Record<Timestamps, string | null> & { rowsStamp: string };
   return {
-    ...revision,
-    createdAt: new Date(revision.createdAt ?? 0),
-    updatedAt: new Date(revision.updatedAt ?? 0),
-    lockedAt: revision.lockedAt === null ? null : new Date(revision.lockedAt),
+    revision: {
+      ...revision,
+      createdAt: new Date(revision.createdAt ?? 0),
+      updatedAt: new Date(revision.updatedAt ?? 0),
+      lockedAt: revision.lockedAt === null ? null : new Date(revision.lockedAt),
+    },
+    parametersJson: await rowsJsonAt(revision.id, rowsStamp),
   };
 }
 
@@ -169,6 +231,16 @@ export function sheetOf(revision: Parameters<typeof sheetHeaderOf>[0], rows: rea
   return { ...sheetHeaderOf(revision), parameters: rows.map(toParameter) };
 }
 
+/** The whole sheet of a revision in the documented format, from its header and its rows as the API gives them. */
+export function sheetOfParameters(revision: Parameters<typeof sheetHeaderOf>[0], rows: readonly RevisionParameter[]): Sheet {
+  return {
+    ...sheetHeaderOf(revision),
+    parameters: rows.map(
+      ({ subsystemId: _subsystemId, version: _version, updatedBy: _updatedBy, updatedAt: _updatedAt, ...parameter }) => parameter,
+    ),
+  };
+}
+
 /** A stored row as the API gives it: the parameter, its subsystem id, version and last change. */
 export function toRevisionParameter(row: StoredRow): RevisionParameter {
   return {
@@ -178,6 +250,23 @@ export function toRevisionParameter(row: StoredRow): RevisionParameter {
     updatedBy: row.updatedById !== null && row.updatedByName !== null ? { id: row.updatedById, name: row.updatedByName } : null,
     updatedAt: row.updatedAt.toISOString(),
   };
+}
+
+/** A revision's detail before its rows go in: everything but `sheet.parameters`. */
+export type RevisionDetailWithoutRows = Omit<RevisionDetail, 'sheet'> & { sheet: Omit<RevisionDetail['sheet'], 'parameters'> };
+
+/**
+ * A revision's detail as UTF-8 JSON, its rows given as UTF-8 JSON already (`parametersJsonColumn`, or the rows
+ * a reader may see serialised): they go in as they are, parsed, serialised and encoded again by no one.
+ */
+export function revisionDetailJson(detail: RevisionDetailWithoutRows, parametersJson: Buffer): Buffer {
+  const { sheet, ...rest } = detail;
+  // Both objects have members (a sheet always has a name, a detail a revision), so the splices stay valid JSON.
+  return Buffer.concat([
+    Buffer.from(`{"sheet":${JSON.stringify(sheet).slice(0, -1)},"parameters":`),
+    parametersJson,
+    Buffer.from(`},${JSON.stringify(rest).slice(1)}`),
+  ]);
 }
 
 /** The craft's working draft id, or null when it has none (a craft made before sheets were stored). */

@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { craftNamed, createToken, signInWithFetch } from './api';
+import { benchCompare } from './compare';
 import { createLargeCraft } from './large-craft';
 import { benchRevisionUnderLoad, benchServerEvaluation } from './server';
 import { startBenchStack } from './stack';
@@ -9,7 +10,7 @@ import { benchKeystrokeToSummary, webDist, webJavaScriptGzipBytes } from './web'
 
 /**
  * Benchmarks of the running product, after the engine's: the web bundle's size, keystroke to summary in
- * Chromium, the server's evaluation of a large revision and the revision GET under load. They start their
+ * Chromium, the server's evaluation of a large revision, the comparison of two and the revision GET under load. They start their
  * own stack (tests/bench/stack.ts) and print one table, each figure beside its target. A figure that cannot
  * be measured (no web build, a request refused) is printed as such and the others still run.
  */
@@ -30,7 +31,7 @@ const EVALUATION_ROWS = 5000;
 
 const milliseconds = (value: number) => `${value.toFixed(1)} ms`;
 
-/** TRIMSHEET_BENCH_ONLY=keystroke|evaluation|load runs just that product benchmark (while working on it). */
+/** TRIMSHEET_BENCH_ONLY=keystroke|evaluation|compare|load runs just that product benchmark (while working on it). */
 const only = process.env.TRIMSHEET_BENCH_ONLY;
 
 async function measure(figures: Figure[], name: string, work: () => Promise<Figure[]>): Promise<void> {
@@ -92,6 +93,25 @@ export async function runProductBenchmarks(): Promise<void> {
         {
           name: `server evaluation of a ${EVALUATION_ROWS.toLocaleString('en')}-row revision (GET .../evaluation)`,
           measured: milliseconds(median),
+        },
+      ];
+    });
+
+    // Named without "evaluation", so that TRIMSHEET_BENCH_ONLY=evaluation does not run it too.
+    const comparison = `compare two ${EVALUATION_ROWS.toLocaleString('en')}-row revisions`;
+    await measure(figures, comparison, async () => {
+      const compared = await benchCompare(stack.appUrl, token, api, stack.databaseUrl, EVALUATION_ROWS);
+      const changed = `GET .../compare, ${compared.changedRows} rows changed`;
+      return [
+        {
+          name: `${comparison} including their evaluation (${changed})`,
+          measured: milliseconds(compared.compare),
+          target: { text: '< 50 ms', met: compared.compare < 50 },
+        },
+        { name: `${comparison} and what moved one output (${changed})`, measured: milliseconds(compared.whatMoved) },
+        {
+          name: `${comparison}, the first request of the craft (one sample, no analysis to reuse)`,
+          measured: milliseconds(compared.first),
         },
       ];
     });

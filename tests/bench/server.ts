@@ -4,11 +4,11 @@ import { z } from 'zod';
 import { inheritedEnvironment } from '@/server/env';
 import { evaluationResponseSchema } from '@/shared/schemas/revisions';
 import { revisionPath } from './api';
-import { spawnTypeScript, waitUntilAnswering, type BenchStack } from './stack';
+import { benchPorts, spawnTypeScript, waitUntilAnswering, type BenchStack } from './stack';
 import { medianMilliseconds } from './statistics';
 
-/** The yardstick server's port, beside the bench stack's own. */
-const BARE_PORT = 8482;
+/** The yardstick server's port, beside the bench stack's own (shifted with them by TRIMSHEET_BENCH_PORT_OFFSET). */
+const BARE_PORT = benchPorts.app + 1;
 
 /**
  * Median of `GET .../evaluation` (values, errors and budget computed on the server) of a revision, one

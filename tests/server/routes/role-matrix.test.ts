@@ -41,6 +41,13 @@ beforeAll(async () => {
     bind: [tern.id],
     type: QueryTypes.SELECT,
   });
+  const revisionOf = async (kind: 'baseline' | 'study') => {
+    const [found] = await testApp.sequelize.query<{ id: string }>(`SELECT id FROM revisions WHERE craft_id = $1 AND kind = $2`, {
+      bind: [tern.id, kind],
+      type: QueryTypes.SELECT,
+    });
+    return found?.id ?? '';
+  };
   const [optics] = await testApp.sequelize.query<{ id: string }>(`SELECT id FROM subsystems WHERE craft_id = $1 AND name = 'Optics'`, {
     bind: [tern.id],
     type: QueryTypes.SELECT,
@@ -48,6 +55,8 @@ beforeAll(async () => {
   ids = {
     craftId: tern.id,
     revisionId: draft?.id ?? '',
+    baselineId: await revisionOf('baseline'),
+    studyId: await revisionOf('study'),
     subsystemId: optics?.id ?? '',
     ines: await byEmail('demo-ines'),
     tomas: tomas.id,
@@ -80,7 +89,7 @@ describe.each(routeCases)('$method $template', (route) => {
   it.each(actors)(`answers %s as designed`, async (actor) => {
     const session = route.endsSession ? await startSession(actor) : sessions.get(actor);
     if (!session) throw new Error(`no session for ${actor}`);
-    const path = fillTemplate(route.template, route, ids) + (route.query ? `?${route.query}` : '');
+    const path = fillTemplate(route.template, route, ids) + (route.query ? `?${fillTemplate(route.query, route, ids)}` : '');
     let call = session.agent[route.method](path).set('x-csrf-token', session.csrfToken);
     if (route.body) call = call.send(JSON.parse(fillTemplate(JSON.stringify(route.body(actor)), route, ids)));
     if (route.stream) call = call.buffer(true).parse(hangUpOnStreams as unknown as Parameters<typeof call.parse>[0]);

@@ -6,10 +6,15 @@
 export type Actor = 'signedOut' | 'ines' | 'tomas' | 'amara' | 'kenji' | 'lucia' | 'oren' | 'priya';
 export const actors: Actor[] = ['signedOut', 'ines', 'tomas', 'amara', 'kenji', 'lucia', 'oren', 'priya'];
 
-/** Ids the paths are filled with: Tern, its draft and Optics subsystem, two people, and a token of Tomás. */
+/**
+ * Ids the paths are filled with: Tern, its draft, its PDR baseline, Kenji's study and Optics subsystem, two
+ * people, and a token of Tomás.
+ */
 export interface Ids {
   craftId: string;
   revisionId: string;
+  baselineId: string;
+  studyId: string;
   subsystemId: string;
   ines: string;
   tomas: string;
@@ -85,6 +90,7 @@ export const routeCases: RouteCase[] = [
   { method: 'get', template: `${craft}/revisions`, expected: craftMembersOnly },
   { method: 'get', template: revision, expected: craftMembersOnly },
   { method: 'get', template: `${revision}/evaluation`, expected: craftMembersOnly },
+  { method: 'get', template: `${craft}/compare`, query: 'from={revisionId}&to={revisionId}&output=sail_area', expected: craftMembersOnly },
   {
     method: 'post',
     template: `${revision}/parameters`,
@@ -113,6 +119,55 @@ export const routeCases: RouteCase[] = [
     fill: () => ({ key: 'front_coating_thickness' }),
     query: 'version=999',
     expected: engineersOnly(409),
+  },
+  // In Kenji's study its owner and the engineers edit any row (sail side is not Kenji's subsystem); the same value again.
+  {
+    method: 'patch',
+    template: `${revision}/parameters/{key}`,
+    fill: (ids) => ({ revisionId: ids.studyId, key: 'sail_side' }),
+    body: () => ({ version: 2, value: 45 }),
+    expected: { ...engineersOnly(200), kenji: 200 },
+  },
+  // A locked baseline: nobody edits it (a chief engineer neither); partners see sail side, so it is 403 for them too.
+  {
+    method: 'patch',
+    template: `${revision}/parameters/{key}`,
+    fill: (ids) => ({ revisionId: ids.baselineId, key: 'sail_side' }),
+    body: () => ({ version: 1, value: 41 }),
+    expected: { signedOut: 401, priya: 404, default: 403 },
+  },
+  {
+    method: 'post',
+    template: `${revision}/lock`,
+    body: (actor) => ({ label: `Matrix review by ${actor}` }),
+    expected: { signedOut: 401, tomas: 201, priya: 404, default: 403 },
+  },
+  {
+    method: 'post',
+    template: `${revision}/studies`,
+    body: (actor) => ({ name: `Matrix study by ${actor}` }),
+    expected: { ...engineersOnly(201), kenji: 201 },
+  },
+  // The baseline is no study: the chief engineer, who may promote, gets 409 not_a_study, so nothing is promoted.
+  {
+    method: 'post',
+    template: `${craft}/revisions/{studyId}/promote`,
+    fill: (ids) => ({ studyId: ids.baselineId }),
+    body: () => ({ resolutions: {} }),
+    expected: { signedOut: 401, tomas: 409, priya: 404, default: 403 },
+  },
+  {
+    method: 'get',
+    template: `${craft}/revisions/{revisionId}/review.pdf`,
+    fill: (ids) => ({ revisionId: ids.baselineId }),
+    expected: { signedOut: 401, lucia: 403, priya: 404, default: 200 },
+  },
+  { method: 'get', template: `${craft}/audit`, expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 } },
+  {
+    method: 'get',
+    template: `${craft}/audit`,
+    query: 'format=csv',
+    expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 },
   },
   { method: 'post', template: `${craft}/subsystems`, body: (actor) => ({ name: `Matrix ${actor}` }), expected: engineersOnly(201) },
   { method: 'patch', template: `${craft}/subsystems/{subsystemId}`, body: () => ({ name: 'Optics' }), expected: engineersOnly(200) },

@@ -96,6 +96,27 @@ describe('personal access tokens', () => {
     expect(response.body.error.code).toBe('token_not_allowed');
   });
 
+  it('signs a script in for the request only: no session, no cookie, whatever cookie comes along', async () => {
+    const { secret } = await newToken('read');
+    const draft = await readDraft(amara, ternId);
+    const read = await request(testApp.app).get(draft.path).set(bearer(secret)).expect(200);
+    expect(read.headers['set-cookie']).toBeUndefined();
+    expect(read.body.sheet.parameters.length).toBe(draft.sheet.parameters.length);
+    // The person's own browser cookies beside the token change nothing: the token alone signs the request in.
+    const withCookies = await amara.agent.get('/api/crafts').set(bearer(secret)).expect(200);
+    expect(withCookies.headers['set-cookie']).toBeUndefined();
+    await amara.agent.get('/api/auth/session').set(bearer(secret)).expect(403);
+  });
+
+  it('refuses a token on the first request after it is revoked, though it was just in use', async () => {
+    const { id, secret } = await newToken('read', 'Busy script');
+    const draft = await readDraft(amara, ternId);
+    await Promise.all(Array.from({ length: 5 }, () => request(testApp.app).get(draft.path).set(bearer(secret)).expect(200)));
+    await amara.agent.delete(`/api/account/tokens/${id}`).set('x-csrf-token', amara.csrfToken).expect(204);
+    const refused = await request(testApp.app).get(draft.path).set(bearer(secret)).expect(401);
+    expect(refused.body.error.code).toBe('invalid_token');
+  });
+
   it('answers a revoked or unknown token with 401', async () => {
     const { id, secret } = await newToken('read_write', 'Soon revoked');
     await amara.agent.delete(`/api/account/tokens/${id}`).set('x-csrf-token', amara.csrfToken).expect(204);

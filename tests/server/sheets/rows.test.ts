@@ -60,17 +60,28 @@ describe('the seeded working draft', () => {
 });
 
 describe('GET /api/crafts/:craftId/revisions', () => {
-  it('lists the working draft with who created it', async () => {
+  it('lists the working draft, the PDR baseline it continues from and the open study, oldest first, with who created them', async () => {
     const response = await oren.agent.get(`/api/crafts/${ternId}/revisions`).expect(200);
-    expect(response.body.revisions).toEqual([
+    const [draft, pdr, study] = response.body.revisions;
+    expect(response.body.revisions).toHaveLength(3);
+    expect(draft).toEqual(
       expect.objectContaining({
         kind: 'draft',
         state: 'open',
-        parentId: null,
+        parentId: pdr.id,
         createdBy: expect.objectContaining({ name: 'Tomás Reyes' }),
         lockedAt: null,
       }),
-    ]);
+    );
+    expect(pdr).toEqual(expect.objectContaining({ kind: 'baseline', state: 'locked', label: 'PDR', parentId: null }));
+    expect(study).toEqual(
+      expect.objectContaining({
+        kind: 'study',
+        state: 'open',
+        parentId: draft.id,
+        createdBy: expect.objectContaining({ name: 'Kenji Hollis' }),
+      }),
+    );
   });
 
   it("gives the other organisation's craft a sheet of its own", async () => {
