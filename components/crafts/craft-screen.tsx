@@ -61,9 +61,17 @@ export function CraftScreen({ craftId }: { craftId: string }) {
   return (
     <Screen title={craft.data.name} aside={back}>
       <CraftSummary craft={craft.data} canEdit={mayOnCraft('editCraftDetails', who)} />
-      <Link href={`/crafts/${craftId}/sheet`} asChild>
-        <Button label="Open the sheet" role="link" style={styles.start} testID="craft-open-sheet" />
-      </Link>
+      <View style={styles.links}>
+        <Link href={`/crafts/${craftId}/sheet`} asChild>
+          <Button label="Open the sheet" role="link" testID="craft-open-sheet" />
+        </Link>
+        <Link href={`/crafts/${craftId}/revisions`} asChild>
+          <Button label="Revisions" tone="secondary" role="link" testID="craft-open-revisions" />
+        </Link>
+        <Link href={`/crafts/${craftId}/compare`} asChild>
+          <Button label="Compare revisions" tone="secondary" role="link" testID="craft-open-compare" />
+        </Link>
+      </View>
       <CraftMembers craftId={craftId} canManage={mayOnCraft('manageMembers', who)} />
     </Screen>
   );
@@ -114,4 +122,5 @@ function CraftSummary({ craft, canEdit }: { craft: Craft; canEdit: boolean }) {
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   start: { alignSelf: 'flex-start' },
+  links: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

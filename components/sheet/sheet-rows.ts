@@ -24,9 +24,12 @@ export function groupRows(detail: RevisionDetail): SheetGroup[] {
   return [...groups].filter(([, keys]) => keys.length > 0).map(([subsystem, keys]) => ({ subsystem, keys }));
 }
 
-/** Who the person is on this revision, for the permission table: their role and the subsystems they may edit. */
-export function whoOn(detail: RevisionDetail, role: Who['role'], isOrgAdmin: boolean): Who {
-  return { role, isOrgAdmin, subsystemIds: detail.abilities.editableSubsystemIds };
+/**
+ * Who the person is on this revision, for the permission table: their role, the subsystems they may edit,
+ * and their id (a study's owner edits all of it).
+ */
+export function whoOn(detail: RevisionDetail, role: Who['role'], isOrgAdmin: boolean, userId: string | undefined): Who {
+  return { role, isOrgAdmin, subsystemIds: detail.abilities.editableSubsystemIds, userId };
 }
 
 /**

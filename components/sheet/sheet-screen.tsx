@@ -10,7 +10,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { colors, space } from '@/components/ui/theme';
-import { craftParamsSchema } from '@/shared/schemas/crafts';
+import { revisionParamsSchema } from '@/shared/schemas/revisions';
 import { revisionOptions, useSheetEvents } from './queries';
 import { SheetWorkspace } from './sheet-workspace';
 
@@ -22,9 +22,16 @@ function Frame({ title, craftId, children }: { title: string; craftId: string | 
         <AppText variant="title" style={styles.title} numberOfLines={1}>
           {title}
         </AppText>
-        <Link href={craftId === undefined ? '/crafts' : `/crafts/${craftId}`} asChild>
-          <Button label={craftId === undefined ? 'All crafts' : 'Craft'} tone="quiet" role="link" />
-        </Link>
+        <View style={styles.links}>
+          {craftId === undefined ? null : (
+            <Link href={`/crafts/${craftId}/revisions`} asChild>
+              <Button label="Revisions" tone="quiet" role="link" testID="sheet-revisions" />
+            </Link>
+          )}
+          <Link href={craftId === undefined ? '/crafts' : `/crafts/${craftId}`} asChild>
+            <Button label={craftId === undefined ? 'All crafts' : 'Craft'} tone="quiet" role="link" />
+          </Link>
+        </View>
       </View>
       {children}
     </View>
@@ -38,12 +45,16 @@ function failure(error: Error, what: string): { title: string; message: string; 
     : { title: `Could not load the ${what}`, message: error.message, missing };
 }
 
-/** A craft's working sheet: loaded from the server, evaluated live in the browser, edited row by row. */
-export function SheetScreen({ craftId }: { craftId: string }) {
-  const wellFormed = craftParamsSchema.safeParse({ craftId }).success;
+/**
+ * A craft's sheet: the working draft, or the revision named (a study to edit, a baseline to read); loaded
+ * from the server, evaluated live in the browser, edited row by row.
+ */
+export function SheetScreen({ craftId, requestedRevisionId }: { craftId: string; requestedRevisionId?: string }) {
+  const wellFormed = revisionParamsSchema.safeParse({ craftId, revisionId: requestedRevisionId ?? craftId }).success;
   const craft = useQuery({ ...craftOptions(craftId), enabled: wellFormed });
-  const isOrgAdmin = useSessionUser()?.isOrgAdmin ?? false;
-  const revisionId = craft.data?.draftRevisionId ?? undefined;
+  const user = useSessionUser();
+  const isOrgAdmin = user?.isOrgAdmin ?? false;
+  const revisionId = requestedRevisionId ?? craft.data?.draftRevisionId ?? undefined;
   const liveStatus = useSheetEvents(craftId, wellFormed ? revisionId : undefined);
   const revision = useQuery({
     ...revisionOptions(craftId, revisionId ?? '', liveStatus !== 'live'),
@@ -53,7 +64,7 @@ export function SheetScreen({ craftId }: { craftId: string }) {
   if (!wellFormed) {
     return (
       <Frame title="Sheet" craftId={undefined}>
-        <ErrorState title="No such craft" message={`“${craftId}” in the address is not a craft identifier.`} />
+        <ErrorState title="No such sheet" message="The address does not name a craft and revision." />
       </Frame>
     );
   }
@@ -95,9 +106,17 @@ export function SheetScreen({ craftId }: { craftId: string }) {
       </Frame>
     );
   }
+  const shown = revision.data.revision;
   return (
-    <Frame title={title} craftId={craftId}>
-      <SheetWorkspace key={revisionId} craft={craft.data} detail={revision.data} liveStatus={liveStatus} isOrgAdmin={isOrgAdmin} />
+    <Frame title={shown.kind === 'draft' ? title : `${craft.data.name}: ${shown.label} (${shown.kind})`} craftId={craftId}>
+      <SheetWorkspace
+        key={revisionId}
+        craft={craft.data}
+        detail={revision.data}
+        liveStatus={liveStatus}
+        isOrgAdmin={isOrgAdmin}
+        userId={user?.id}
+      />
     </Frame>
   );
 }
@@ -113,4 +132,5 @@ const styles = StyleSheet.create({
     paddingTop: space.md,
   },
   title: { flexShrink: 1 },
+  links: { flexDirection: 'row', gap: space.xs },
 });

@@ -42,6 +42,8 @@ export type SheetWorkspaceProps = {
   detail: RevisionDetail;
   liveStatus: LiveStatus;
   isOrgAdmin: boolean;
+  /** The signed-in person's id: the owner of a study edits all of it. */
+  userId: string | undefined;
 };
 
 /** The groups change only when rows are added, removed, moved or renamed: the table keeps its props across value edits. */
@@ -84,7 +86,7 @@ function HeadlineFigures({ figures }: { figures: NonNullable<RevisionDetail['hea
  * The craft's sheet at work: the live engine session on the server's rows, the table (wide) or the list and
  * edit sheets (phone), saving, undo and redo, others' edits as they arrive, and the panels on the results.
  */
-export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetWorkspaceProps) {
+export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin, userId }: SheetWorkspaceProps) {
   const sheet = useMemo(() => toSheet(detail), [detail]);
   const live = useFollowingSheetSession(sheet);
   const editor = useSheetEditor(craft.id, detail, live);
@@ -99,7 +101,7 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin }: SheetW
   const [adding, setAdding] = useState(false);
   const [managingSubsystems, setManagingSubsystems] = useState(false);
 
-  const who = useMemo(() => whoOn(detail, craft.myRole, isOrgAdmin), [detail, craft.myRole, isOrgAdmin]);
+  const who = useMemo(() => whoOn(detail, craft.myRole, isOrgAdmin, userId), [detail, craft.myRole, isOrgAdmin, userId]);
   const access = useMemo(() => rowAccess(detail, who), [detail, who]);
   const readOnly = useMemo(() => sheetReadOnlyReason(detail, who), [detail, who]);
   const groups = useStableGroups(detail);
