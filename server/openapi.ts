@@ -1,6 +1,7 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 import { auditListSchema, auditQuerySchema } from '@/shared/schemas/audit';
+import { rowHistoryQuerySchema, rowHistorySchema } from '@/shared/schemas/history';
 import { apiErrorSchema } from '@/shared/schemas/common';
 import { compareQuerySchema, compareResponseSchema } from '@/shared/schemas/compare';
 import { craftListSchema, craftParamsSchema, craftSchema, createCraftBodySchema, updateCraftBodySchema } from '@/shared/schemas/crafts';
@@ -329,6 +330,17 @@ export const documentedRoutes: DocumentedRoute[] = [
     params: revisionParamsSchema,
     ok: { status: 200, schema: z.string().meta({ format: 'binary' }), contentType: 'application/pdf' },
     errors: [401, 403, 404],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${revision}/history`,
+    summary:
+      "A revision's row changes, newest first, at most 200 (`truncated` when there were more): who, when, the row before and after, and the revision it was made in (a baseline's are its draft's up to the lock; a study's start with its source's). `key` narrows to one row and its earlier keys; partners get the changes of rows they may see",
+    params: revisionParamsSchema,
+    query: rowHistoryQuerySchema,
+    ok: { status: 200, schema: rowHistorySchema },
+    errors: [400, 401, 404],
     token: true,
   },
   {

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { auditQuerySchema } from '@/shared/schemas/audit';
 import { craftParamsSchema } from '@/shared/schemas/crafts';
+import { rowHistoryQuerySchema } from '@/shared/schemas/history';
 import {
   lockBaselineBodySchema,
   openStudyBodySchema,
@@ -13,14 +14,16 @@ import { currentUser } from '../middleware/require-user';
 import { validate } from '../middleware/validate';
 import { auditCsv, listAudit } from '../services/audit';
 import { lockBaseline } from '../services/baselines';
+import { rowHistory } from '../services/history';
 import { promoteStudy } from '../services/promotion';
 import { reviewPack } from '../services/review-pack';
 import { openStudy } from '../services/studies';
 
 /**
  * Revision control of a craft under /api/crafts/:craftId: locking the draft as a baseline, opening and
- * promoting studies, and the audit log of those and of role and token changes. Every route needs a
- * signed-in person (mounted behind requireUser); a craft the caller may not see is 404, a refused action 403.
+ * promoting studies, the audit log of those and of role and token changes, and the history of row changes. Every
+ * route needs a signed-in person (mounted behind requireUser); a craft the caller may not see is 404, a refused
+ * action 403.
  */
 export function revisionControlRouter({ sequelize }: AppDeps): Router {
   const router = Router();
@@ -67,6 +70,16 @@ export function revisionControlRouter({ sequelize }: AppDeps): Router {
       .set('X-Content-Type-Options', 'nosniff')
       .send(pdf);
   });
+
+  // GET /api/crafts/:craftId/revisions/:revisionId/history?key=: whoever may view the craft (partners: changes of rows
+  // they may see); RowHistory, newest first, at most 200; 400 invalid_input (a bad key), 404.
+  router.get(
+    '/:craftId/revisions/:revisionId/history',
+    validate({ params: revisionParamsSchema, query: rowHistoryQuerySchema }),
+    async (req, res) => {
+      res.json(await rowHistory(sequelize, currentUser(req), req.params.craftId, req.params.revisionId, req.query));
+    },
+  );
 
   // GET /api/crafts/:craftId/audit?action=&actor=&from=&to=&limit=&format=: organisation admins and chief engineers;
   // { events } newest first, or CSV with format=csv or Accept: text/csv; 400 invalid_input, 403, 404.

@@ -162,6 +162,14 @@ export const routeCases: RouteCase[] = [
     fill: (ids) => ({ revisionId: ids.baselineId }),
     expected: { signedOut: 401, lucia: 403, priya: 404, default: 200 },
   },
+  { method: 'get', template: `${revision}/history`, expected: craftMembersOnly },
+  {
+    method: 'get',
+    template: `${revision}/history`,
+    fill: (ids) => ({ revisionId: ids.baselineId }),
+    query: 'key=sail_side',
+    expected: craftMembersOnly,
+  },
   { method: 'get', template: `${craft}/audit`, expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 } },
   {
     method: 'get',
