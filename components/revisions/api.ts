@@ -1,4 +1,5 @@
 import { apiRequest, apiUrl } from '@/components/api/client';
+import { auditListSchema, type AuditAction, type AuditEvent } from '@/shared/schemas/audit';
 import {
   promotionSchema,
   revisionListSchema,
@@ -38,4 +39,21 @@ export function promoteStudy(craftId: string, studyId: string, body: PromoteStud
 /** The address of a revision's review pack (a PDF the browser downloads). */
 export function reviewPackUrl(craftId: string, revisionId: string): string {
   return apiUrl(`${revisionsPath(craftId)}/${encodeURIComponent(revisionId)}/review.pdf`);
+}
+
+function auditPath(craftId: string, action: AuditAction | undefined, format?: 'csv'): string {
+  const query = new URLSearchParams({ ...(action === undefined ? {} : { action }), ...(format === undefined ? {} : { format }) });
+  const search = query.toString();
+  return `/api/crafts/${encodeURIComponent(craftId)}/audit${search === '' ? '' : `?${search}`}`;
+}
+
+/** GET /api/crafts/:craftId/audit[?action=]: the craft's audit log, newest first (organisation admins, chief engineers). */
+export async function listAudit(craftId: string, action: AuditAction | undefined): Promise<AuditEvent[]> {
+  const { events } = await apiRequest('GET', auditPath(craftId, action), { schema: auditListSchema });
+  return events;
+}
+
+/** The address of the audit log as CSV (a file the browser downloads), with the same filter. */
+export function auditCsvUrl(craftId: string, action: AuditAction | undefined): string {
+  return apiUrl(auditPath(craftId, action, 'csv'));
 }

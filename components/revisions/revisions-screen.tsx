@@ -13,17 +13,17 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import { mayOnCraft, type Who } from '@/shared/access/permissions';
+import { formatMoment } from '@/shared/format/moment';
 import { craftParamsSchema } from '@/shared/schemas/crafts';
 import type { Revision } from '@/shared/schemas/revisions';
 import { reviewPackUrl } from './api';
+import { AuditLog } from './audit-log';
 import { PromotePanel } from './promote-panel';
 import { revisionListOptions } from './queries';
 import { LockBaselineForm, OpenStudyForm } from './revision-forms';
 
 /** What is open below a revision: a form or the promotion of a study. */
 type Opened = { action: 'lock' | 'study' | 'promote'; revisionId: string };
-
-const when = (timestamp: string) => `${timestamp.slice(0, 16).replace('T', ' ')} UTC`;
 
 /** Where a revision's sheet opens: the draft's own address, or the sheet of that revision. */
 function sheetHref(craftId: string, revision: Revision): Href {
@@ -61,10 +61,10 @@ function RevisionCard({ craftId, revision, compareWith, who, opened, onOpen }: R
       </View>
       <AppText variant="muted">
         {revision.lockedAt !== null
-          ? `Locked by ${revision.lockedBy?.name ?? 'a former member'} on ${when(revision.lockedAt)}`
+          ? `Locked by ${revision.lockedBy?.name ?? 'a former member'} on ${formatMoment(revision.lockedAt)}`
           : revision.kind === 'study'
-            ? `Opened by ${revision.createdBy?.name ?? 'a former member'} on ${when(revision.createdAt)}`
-            : `Last changed ${when(revision.updatedAt)}`}
+            ? `Opened by ${revision.createdBy?.name ?? 'a former member'} on ${formatMoment(revision.createdAt)}`
+            : `Last changed ${formatMoment(revision.updatedAt)}`}
       </AppText>
       {revision.note.trim() !== '' ? <AppText>{revision.note}</AppText> : null}
       <View style={styles.actions}>
@@ -140,8 +140,8 @@ function Section({ title, children, testID }: { title: string; children: React.R
 
 /**
  * A craft's revisions: the working draft (lock it as a baseline), the locked baselines (their review packs,
- * compared with the draft) and the studies (open, compare, promote). Each action shows only to those the
- * permission table allows.
+ * compared with the draft), the studies (open, compare, promote) and the audit log. Each action shows only to
+ * those the permission table allows.
  */
 export function RevisionsScreen({ craftId }: { craftId: string }) {
   const wellFormed = craftParamsSchema.safeParse({ craftId }).success;
@@ -220,6 +220,7 @@ export function RevisionsScreen({ craftId }: { craftId: string }) {
           studies.map((study) => card(study, study.parentId ?? undefined))
         )}
       </Section>
+      {mayOnCraft('viewAudit', who) ? <AuditLog craftId={craftId} /> : null}
     </Screen>
   );
 }

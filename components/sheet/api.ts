@@ -1,4 +1,5 @@
 import { apiRequest, apiUrl } from '@/components/api/client';
+import { rowHistorySchema, type RowHistory } from '@/shared/schemas/history';
 import {
   revisionDetailSchema,
   revisionParameterSchema,
@@ -19,6 +20,15 @@ export function getRevision(craftId: string, revisionId: string): Promise<Revisi
   return apiRequest('GET', `/api/crafts/${encodeURIComponent(craftId)}/revisions/${encodeURIComponent(revisionId)}`, {
     schema: revisionDetailSchema,
   });
+}
+
+/** GET .../history?key=: one row's changes in the revision, its earlier keys included, newest first (at most 200). */
+export function getRowHistory(craftId: string, revisionId: string, key: string): Promise<RowHistory> {
+  return apiRequest(
+    'GET',
+    `/api/crafts/${encodeURIComponent(craftId)}/revisions/${encodeURIComponent(revisionId)}/history?key=${encodeURIComponent(key)}`,
+    { schema: rowHistorySchema },
+  );
 }
 
 /** POST .../parameters: adds a row (engineers); the row as stored. */

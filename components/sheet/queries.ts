@@ -13,6 +13,7 @@ import {
   deleteParameter,
   deleteSubsystem,
   getRevision,
+  getRowHistory,
   renameSubsystem,
   sheetEventsUrl,
   updateParameter,
@@ -24,6 +25,7 @@ export const sheetKeys = {
   all: ['sheets'] as const,
   craft: (craftId: string) => [...sheetKeys.all, craftId] as const,
   revision: (craftId: string, revisionId: string) => [...sheetKeys.craft(craftId), 'revision', revisionId] as const,
+  rowHistory: (craftId: string, revisionId: string, key: string) => [...sheetKeys.craft(craftId), 'history', revisionId, key] as const,
 };
 
 /** How often the sheet is refetched while the events stream is down: others' edits then show within this time. */
@@ -36,6 +38,10 @@ export const revisionOptions = (craftId: string, revisionId: string, poll: boole
     queryFn: () => getRevision(craftId, revisionId),
     refetchInterval: poll ? pollMilliseconds : false,
   });
+
+/** One row's history in a revision; under the craft's key, so the craft's live events refetch it with the sheet. */
+export const rowHistoryOptions = (craftId: string, revisionId: string, key: string) =>
+  queryOptions({ queryKey: sheetKeys.rowHistory(craftId, revisionId, key), queryFn: () => getRowHistory(craftId, revisionId, key) });
 
 type Snapshot = { previous: RevisionDetail | undefined };
 

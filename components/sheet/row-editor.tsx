@@ -10,6 +10,7 @@ import { fonts, space } from '@/components/ui/theme';
 import { compatibleUnits, fromSI, parseUnit, toSI } from '@/shared/engine';
 import { parameterKeyProblem, type Parameter } from '@/shared/schemas/sheet';
 import { computedText, RowNotices, statusText } from './row-feedback';
+import { RowHistory } from './row-history';
 import { SheetPanel } from './sheet-panel';
 import type { RowBinding } from './row-binding';
 import type { SheetGroup } from './sheet-rows';
@@ -17,6 +18,9 @@ import type { RowFields } from './use-sheet-editor';
 import { definitionText, ValueInput } from './value-input';
 
 export type RowEditorProps = RowBinding & {
+  /** Where the row's history is read. */
+  craftId: string;
+  revisionId: string;
   groups: readonly SheetGroup[];
   maturities: readonly { id: string; label: string }[];
   /** On a phone the edit sheet holds the value field too; on a wide screen the table does. */
@@ -71,9 +75,10 @@ function RenameField({ parameter, onRename }: { parameter: Parameter; onRename: 
 /**
  * The edit sheet of one row (a panel over the screen): its value on a phone, its unit among those of the
  * same dimension, label and maturity for those who edit it; key, subsystem, order and deletion for those
- * who manage rows.
+ * who manage rows; its history for everyone who sees it.
  */
-export function RowEditor({ rowKey, rows, actions, access, message, conflict, groups, maturities, withValue, onClose }: RowEditorProps) {
+export function RowEditor(props: RowEditorProps) {
+  const { craftId, revisionId, rowKey, rows, actions, access, message, conflict, groups, maturities, withValue, onClose } = props;
   const live = useLiveRow(rows, rowKey);
   const [confirmDelete, setConfirmDelete] = useState(false);
   const { parameter } = live;
@@ -169,6 +174,7 @@ export function RowEditor({ rowKey, rows, actions, access, message, conflict, gr
               )}
             </View>
           ) : null}
+          <RowHistory craftId={craftId} revisionId={revisionId} rowKey={rowKey} />
         </ScrollView>
       )}
     </SheetPanel>

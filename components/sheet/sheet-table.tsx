@@ -59,6 +59,7 @@ const SheetTableRow = memo(function SheetTableRow({
   const readOnlyReason = access?.readOnlyReason === groupReason ? undefined : access?.readOnlyReason;
   const status = statusText(live);
   const editable = access?.editable === true && parameter.protected !== true;
+  const opens = access?.editable === true || access?.manage === true ? 'Edit' : 'History';
   return (
     <View style={[styles.row, skippedOutOfView]} testID={`sheet-row-${rowKey}`}>
       <View style={styles.cells} role="row">
@@ -104,17 +105,16 @@ const SheetTableRow = memo(function SheetTableRow({
           {status.text}
         </AppText>
         <View style={cell(6)} role="cell">
-          {access?.editable === true || access?.manage === true ? (
-            <Pressable
-              role="button"
-              aria-label={`Edit ${parameter.label}`}
-              onPress={() => onOpenRow(rowKey)}
-              style={styles.more}
-              testID={`sheet-open-${rowKey}`}
-            >
-              <AppText style={styles.moreText}>Edit</AppText>
-            </Pressable>
-          ) : null}
+          {/* Everyone opens the row's sheet: editors to change it, readers for its history. */}
+          <Pressable
+            role="button"
+            aria-label={`${opens} ${parameter.label}`}
+            onPress={() => onOpenRow(rowKey)}
+            style={styles.more}
+            testID={`sheet-open-${rowKey}`}
+          >
+            <AppText style={styles.moreText}>{opens}</AppText>
+          </Pressable>
         </View>
       </View>
       {message !== undefined || readOnlyReason !== undefined || conflict !== undefined ? (

@@ -198,6 +198,8 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin, userId }
       {openKey !== undefined ? (
         <RowEditor
           {...bindRow(rowsProps, openKey)}
+          craftId={craft.id}
+          revisionId={detail.revision.id}
           groups={groups}
           maturities={maturities}
           withValue={!wide}
