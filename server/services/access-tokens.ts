@@ -74,15 +74,33 @@ export async function revokeToken(user: User, tokenId: string): Promise<void> {
   if (!token) throw notFound('Token');
   if (!token.revokedAt)
     await auditedTokenChange(user, 'token_revoked', (transaction) => token.update({ revokedAt: new Date() }, { transaction }));
+  forgetToken(token.id);
 }
 
 /**
- * The person and token a bearer secret belongs to, or null when it is unknown or revoked: one query (every
- * script request makes it). Notes the use, at most once a minute.
+ * Tokens found valid in the last few seconds, by the hash of their secret: a script's requests skip the
+ * look-up for that long. A revocation in this process takes effect at once (`forgetToken`); one made through
+ * another API process, and changes to the person (removed, admin rights), within RECENT_TOKEN_MS.
  */
-export async function findTokenUser(secret: string): Promise<{ user: User; token: { id: string; scope: TokenScope } } | null> {
+const RECENT_TOKEN_MS = 5_000;
+const RECENT_TOKENS_MAX = 1_000;
+const recentTokens = new Map<string, { owner: TokenOwnerRecord; until: number }>();
+/** Counts revocations, so that a look-up that raced one is not kept. */
+let revocations = 0;
+
+function forgetToken(tokenId: string): void {
+  revocations += 1;
+  for (const [hash, { owner }] of recentTokens) if (owner.tokenId === tokenId) recentTokens.delete(hash);
+}
+
+/** The valid token of this secret hash with its person, from the recent ones or from the database (noting the use). */
+async function tokenOwner(hash: string): Promise<TokenOwnerRecord | null> {
+  const recent = recentTokens.get(hash);
+  if (recent && recent.until > Date.now()) return recent.owner;
+  recentTokens.delete(hash);
   const sequelize = AccessToken.sequelize;
   if (!sequelize) throw new Error('findTokenUser: the models are not initialised on a connection');
+  const revocationsBefore = revocations;
   const [found] = await preparedQuery<TokenOwnerRecord>(
     sequelize,
     `SELECT t.id AS "tokenId", t.scope, t.last_used_at AS "lastUsedAt", t.revoked_at AS "revokedAt",
@@ -91,12 +109,27 @@ export async function findTokenUser(secret: string): Promise<{ user: User; token
             o.created_at AS "organisationCreatedAt", o.updated_at AS "organisationUpdatedAt"
      FROM access_tokens t JOIN users u ON u.id = t.user_id JOIN organisations o ON o.id = u.organisation_id
      WHERE t.token_hash = $1`,
-    [hashSecret(secret)],
+    [hash],
   );
   if (!found || found.revokedAt !== null) return null;
   if (found.lastUsedAt === null || Date.now() - found.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
     await sequelize.query('UPDATE access_tokens SET last_used_at = now() WHERE id = $1', { bind: [found.tokenId] });
   }
+  if (revocations === revocationsBefore) {
+    if (recentTokens.size >= RECENT_TOKENS_MAX) recentTokens.clear(); // a plain bound: scripts' tokens are few
+    recentTokens.set(hash, { owner: found, until: Date.now() + RECENT_TOKEN_MS });
+  }
+  return found;
+}
+
+/**
+ * The person and token a bearer secret belongs to, or null when it is unknown or revoked: one query, or none
+ * for a token found valid in the last few seconds (see `recentTokens`). Notes the use, at most once a minute.
+ * The person is built afresh for each request.
+ */
+export async function findTokenUser(secret: string): Promise<{ user: User; token: { id: string; scope: TokenScope } } | null> {
+  const found = await tokenOwner(hashSecret(secret));
+  if (!found) return null;
   const user = User.build(
     {
       id: found.id,

@@ -130,7 +130,7 @@ interface RowsJson {
   json: Buffer;
 }
 
-const rowsJsonSql = `SELECT ${parametersStampColumn('$1::uuid')} AS stamp, ${parametersJsonColumn('$1::uuid')} AS json`;
+const rowsJsonSql = `SELECT ${parametersStampColumn('r.id')} AS stamp, ${parametersJsonColumn('r.id')} AS json FROM revisions r WHERE r.id = $1`;
 
 /**
  * The rows of recently read revisions, by revision id. A revision GET compares the stamp its one query read
@@ -167,7 +167,7 @@ async function rowsJsonAt(revisionId: string, stamp: string): Promise<Buffer> {
   if (!sequelize) throw new Error('rowsJsonAt: the models are not initialised on a connection');
   // Read a moment after the revision record: rows changed in between come out newer than it, never older.
   const [written] = await preparedQuery<{ stamp: string; json: string }>(sequelize, rowsJsonSql, [revisionId]);
-  if (!written) throw notFound('Revision');
+  if (!written) throw notFound('Revision'); // deleted in that moment
   const rows = { stamp: written.stamp, json: Buffer.from(written.json) };
   keepRows(revisionId, rows);
   return rows.json;

@@ -117,6 +117,23 @@ describe('personal access tokens', () => {
     expect(refused.body.error.code).toBe('invalid_token');
   });
 
+  it('refuses a token revoked through another API process within 5 seconds', async () => {
+    const { id, secret } = await newToken('read', 'Revoked elsewhere');
+    await request(testApp.app).get('/api/crafts').set(bearer(secret)).expect(200);
+    // Another process revokes it: this one hears nothing of it.
+    await AccessToken.update({ revokedAt: new Date() }, { where: { id } });
+    jest.useFakeTimers({
+      doNotFake: ['nextTick', 'setImmediate', 'setTimeout', 'clearTimeout', 'setInterval', 'clearInterval', 'queueMicrotask'],
+    });
+    try {
+      jest.setSystemTime(Date.now() + 5_001);
+      const refused = await request(testApp.app).get('/api/crafts').set(bearer(secret)).expect(401);
+      expect(refused.body.error.code).toBe('invalid_token');
+    } finally {
+      jest.useRealTimers();
+    }
+  });
+
   it('answers a revoked or unknown token with 401', async () => {
     const { id, secret } = await newToken('read_write', 'Soon revoked');
     await amara.agent.delete(`/api/account/tokens/${id}`).set('x-csrf-token', amara.csrfToken).expect(204);
