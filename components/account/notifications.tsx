@@ -8,6 +8,7 @@ import { Toggle } from '@/components/ui/toggle';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
+import { formatMoment } from '@/shared/format/moment';
 import { notificationKinds, type MailPreferences, type NotificationKind } from '@/shared/schemas/notifications';
 import { mailPreferencesOptions, notificationListOptions, useMarkNotificationsRead, useSetMailPreferences } from './queries';
 
@@ -39,7 +40,7 @@ export function NotificationList() {
             <AppText variant="muted" style={styles.body}>
               {entry.body}
             </AppText>
-            <AppText variant="muted">{entry.createdAt.slice(0, 16).replace('T', ' ')} UTC</AppText>
+            <AppText variant="muted">{formatMoment(entry.createdAt)}</AppText>
           </View>
         ))}
       </DividedList>
