@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { useSheetEvents } from '@/components/sheet/queries';
 import { Link, useRouter } from 'expo-router';
 import { useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Platform, ScrollView, StyleSheet, useWindowDimensions, View } from 'react-native';
@@ -162,6 +163,8 @@ function labeller(comparison: CompareResponse): (key: string) => string {
 
 /** The two revisions compared: their rows, then every output, and what moved the chosen output. */
 function Comparison({ craftId, from, to, output, onPick, scrollRef }: ComparisonProps) {
+  // Edits to the revision compared to (usually the working draft) refetch the comparison as they are saved.
+  useSheetEvents(craftId, to);
   const comparison = useQuery(comparisonOptions(craftId, from, to));
   const [filters, setFilters] = useState<CompareFilters>({ changedOnly: true, subsystem: null, outputSearch: '' });
   const { width } = useWindowDimensions();

@@ -1,10 +1,13 @@
 import { queryOptions } from '@tanstack/react-query';
+import { sheetKeys } from '@/components/sheet/queries';
 import { getComparison } from './api';
 
-/** Query keys for comparisons of a craft's revisions, general to specific. */
+/**
+ * Query keys for comparisons of a craft's revisions, general to specific. They sit under the craft's sheet
+ * keys, so an edit the events stream announces refetches an open comparison as it does an open sheet.
+ */
 export const compareKeys = {
-  all: ['compare'] as const,
-  craft: (craftId: string) => [...compareKeys.all, craftId] as const,
+  craft: (craftId: string) => [...sheetKeys.craft(craftId), 'compare'] as const,
   pair: (craftId: string, from: string, to: string) => [...compareKeys.craft(craftId), from, to] as const,
   moved: (craftId: string, from: string, to: string, output: string) => [...compareKeys.pair(craftId, from, to), 'moved', output] as const,
 };

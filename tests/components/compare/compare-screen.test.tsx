@@ -1,4 +1,5 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/dom';
+import { FakeEventSource } from '../helpers/event-source';
 import { setWindowWidth } from '../sheet/sheet-fixtures';
 import {
   baseline,
@@ -191,5 +192,33 @@ describe('CompareScreen on a phone', () => {
     await screen.findByTestId('compare-share-sail_side');
     expect(shareOrder()).toEqual(['compare-share-sail_side', 'compare-share-film_thickness', 'compare-share-boom_density']);
     expect(screen.queryByRole('table')).toBeNull();
+  });
+});
+
+describe('CompareScreen live', () => {
+  beforeEach(() => setWindowWidth(1280));
+  afterEach(() => {
+    delete (globalThis as { EventSource?: unknown }).EventSource;
+  });
+
+  it('compares again when an edit to the revision compared to is saved, and not for other revisions', async () => {
+    (globalThis as { EventSource?: unknown }).EventSource = FakeEventSource;
+    const fetchMock = renderCompare();
+    await screen.findByTestId('compare-output-sail_area');
+    const source = FakeEventSource.last;
+    if (source === undefined) throw new Error('the screen listens to the events stream');
+    source.open();
+    const event = (revisionId: string) => ({
+      type: 'parameters_changed',
+      craftId: draft.craftId,
+      revisionId,
+      keys: ['sail_side'],
+      by: null,
+      at: '2026-12-01T10:00:00.000Z',
+    });
+    source.send('parameters_changed', event(study.id));
+    expect(gets(fetchMock, comparePath(baseline.id, draftId))).toBe(1);
+    source.send('parameters_changed', event(draftId));
+    await waitFor(() => expect(gets(fetchMock, comparePath(baseline.id, draftId))).toBe(2));
   });
 });
