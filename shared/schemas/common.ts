@@ -5,7 +5,15 @@ export const idSchema = z.uuid({ message: 'must be a UUID' });
 
 /** A trimmed, non-empty line of text with a maximum length. */
 export function textLine(max: number) {
-  return z.string().trim().min(1, { message: 'must not be empty' }).max(max, { message: `must be at most ${max} characters` });
+  return (
+    z
+      .string()
+      .trim()
+      .min(1, { message: 'must not be empty' })
+      .max(max, { message: `must be at most ${max} characters` })
+      // A single line: control characters (NUL, line breaks, tabs, escapes) have no place in a name or label.
+      .refine((text) => !/\p{Cc}/u.test(text), { message: 'must be one line of text, without control characters' })
+  );
 }
 
 /** The one error shape every API failure uses. */
