@@ -195,9 +195,9 @@ export const evaluationResponseSchema = z.object({
 });
 export type EvaluationResponse = z.infer<typeof evaluationResponseSchema>;
 
-/** Text PostgreSQL can store: it refuses the NUL character. */
+/** Text PostgreSQL can store: it refuses the NUL character (a name, a single line, refuses every control character). */
 const storable = { message: 'must not contain NUL characters' };
-const revisionName = textLine(100).refine((text) => !text.includes('\u0000'), storable);
+const revisionName = textLine(100);
 const revisionNote = z
   .string()
   .trim()
