@@ -5,7 +5,7 @@ import { PageTitle } from '@/components/ui/page-title';
 export default function WhatIfRoute() {
   return (
     <>
-      <PageTitle title="What-if sizing" />
+      <PageTitle title="Sizing sandbox" />
       <WhatIfScreen />
     </>
   );

@@ -6,7 +6,7 @@ import type { Sheet } from '@/shared/schemas/sheet';
 import { squareSailTemplate } from '@/shared/templates';
 import { SizingWorkspace } from './sizing-workspace';
 
-const title = 'What-if sizing';
+const title = 'Sizing sandbox';
 const subtitle = 'Standard square-sail template, evaluated in your browser. Nothing here is saved.';
 
 function loadTemplate(): { ok: true; sheet: Sheet } | { ok: false; message: string } {
@@ -17,7 +17,7 @@ function loadTemplate(): { ok: true; sheet: Sheet } | { ok: false; message: stri
   }
 }
 
-/** What-if sizing on the standard square-sail template, live in the browser and never saved. */
+/** The sizing sandbox: sizing on the standard square-sail template, live in the browser and never saved. */
 export function WhatIfScreen() {
   // Read once: the workspace starts a new engine session whenever it is given a new sheet object.
   const [template] = useState(loadTemplate);

@@ -62,7 +62,7 @@ export function AppNavigation({ showPeople }: AppNavigationProps) {
           <NavItem label="Crafts" icon="crafts" placement={placement} testID="nav-crafts" />
         </TabTrigger>
         <TabTrigger name="what-if" href="/what-if" asChild>
-          <NavItem label="What-if" icon="what-if" placement={placement} testID="nav-what-if" />
+          <NavItem label="Sandbox" icon="what-if" placement={placement} testID="nav-what-if" />
         </TabTrigger>
         {showPeople ? (
           <TabTrigger name="people" href="/people" asChild>

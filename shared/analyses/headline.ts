@@ -65,3 +65,13 @@ export function headlineFigures(
     return { role, key, label, value: evaluated.value, unit: evaluated.unit, ...(flagged ? { flag: BELOW_REQUIRED_MARGIN } : {}) };
   });
 }
+
+/**
+ * The mass allocation a roll-up holds its margin against: the label of the row playing the role, and the
+ * allocation in kg as the roll-up used it (its predicted total plus its margin).
+ */
+export function massAllocation(sheet: Sheet, rolledUp: BudgetRollUp): { label: string; kg: number } {
+  const key = sheetRoles(sheet).mass_allocation;
+  const row = key === undefined ? undefined : sheet.parameters.find((parameter) => parameter.key === key);
+  return { label: row?.label ?? rowRoleDefinitions.mass_allocation.label, kg: rolledUp.total.predicted + rolledUp.systemMargin.kg };
+}

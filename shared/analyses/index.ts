@@ -3,7 +3,7 @@
  * the CLI read headline figures, the mass budget and the sizing series from.
  */
 export { siValues, roleValuesSI, findRoleRows, type RoleRow } from '@/shared/analyses/roles';
-export { headlineFigures, sheetMassBudget, BELOW_REQUIRED_MARGIN, type HeadlineFigure } from '@/shared/analyses/headline';
+export { headlineFigures, massAllocation, sheetMassBudget, BELOW_REQUIRED_MARGIN, type HeadlineFigure } from '@/shared/analyses/headline';
 export {
   coneAngleSeries,
   filmThicknessTrade,
@@ -12,6 +12,7 @@ export {
   sizeToTarget,
   roleSweep,
   sizingChoices,
+  sizingTargets,
   type ConeAngleSeries,
   type FilmThicknessTrade,
   type TemperatureVersusDistance,

@@ -2,17 +2,17 @@ import {
   applyOverrides,
   compileSheet,
   findMaximum,
-  goalSeek,
+  solveForTarget,
   sweep,
   type AnalysisResult,
-  type GoalSeekResult,
+  type TargetSolveResult,
   type Series,
   type SweepResult,
 } from '@/shared/engine';
 import { rowError } from '@/shared/engine/errors';
 import { fromSI, parseUnit, toSI } from '@/shared/engine/units';
 import type { Sheet } from '@/shared/schemas/sheet';
-import { sizingRange } from '@/shared/templates';
+import { sizingRange, sizingTargetRoles } from '@/shared/templates';
 import { rowRoleDefinitions, sheetRoles, type RowRole } from '@/shared/templates/roles';
 import { findRoleRows, missingRole, type RoleRow } from '@/shared/analyses/roles';
 
@@ -175,7 +175,7 @@ export interface TemperatureVersusDistance {
   /** The limit used (K): given, or the sheet's film-temperature-limit row; undefined when neither exists. */
   readonly limit: { readonly kelvin: number; readonly from: 'given' | 'sheet' } | undefined;
   /**
-   * The distance at which the temperature row reaches the limit (goal seek on the sheet's own row),
+   * The distance at which the temperature row reaches the limit (solving for a target on the sheet's own row),
    * in the distance row's unit and in metres; or why there is none; undefined without a limit.
    */
   readonly closestSafe:
@@ -241,7 +241,7 @@ function closestSafeApproach(
     return { status: 'none', message: `film_temperature_limit: must be a temperature above 0 K, got ${kelvin} K` };
   }
   // Far enough out that any sail is cold, close enough in that a film limit of a few thousand kelvin is reached.
-  const solved = goalSeek(sheet, {
+  const solved = solveForTarget(sheet, {
     input: distance.key,
     from: '0.005 AU',
     to: '50 AU',
@@ -267,13 +267,13 @@ export interface SizeToTargetRequest {
   readonly to?: number | string;
 }
 
-/** Goal seek by role: the value of the input role's row at which the output role's row reaches the target. */
-export function sizeToTarget(sheet: Sheet, request: SizeToTargetRequest): AnalysisResult<GoalSeekResult> {
+/** Sizing to a target by role: the value of the input role's row at which the output role's row reaches the target. */
+export function sizeToTarget(sheet: Sheet, request: SizeToTargetRequest): AnalysisResult<TargetSolveResult> {
   const rows = findRoleRows(sheet, [request.input, request.output]);
   if (!rows.ok) return rows;
   const range = rangeOf(request.input, request);
   if (!range.ok) return range;
-  return goalSeek(sheet, {
+  return solveForTarget(sheet, {
     input: rows.result[request.input].key,
     output: rows.result[request.output].key,
     target: request.target,
@@ -356,4 +356,10 @@ export function sizingChoices(sheet: Sheet): SizingChoice[] {
     const range = defaultRange(role);
     return key === undefined || range === undefined ? [] : [{ role, key, label: rowRoleDefinitions[role].label, ...range }];
   });
+}
+
+/** The sizing targets the sheet has rows for, in the contract's order (the first is a screen's default). */
+export function sizingTargets(sheet: Sheet): RowRole[] {
+  const keys = sheetRoles(sheet);
+  return sizingTargetRoles.filter((role) => keys[role] !== undefined);
 }

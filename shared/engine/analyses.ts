@@ -7,7 +7,7 @@ import { valueInRowUnit } from '@/shared/engine/session';
 import { fromSI, toSI, type ParsedUnit } from '@/shared/engine/units';
 
 /**
- * Analyses on the compiled sheet: sweeps of one or two inputs reading outputs, and goal seek.
+ * Analyses on the compiled sheet: sweeps of one or two inputs reading outputs, and solving for a target.
  * Values given and returned are in each row's declared unit (text such as "600 m" is converted).
  */
 
@@ -216,8 +216,8 @@ function scanOf(
   return { ok: true, result: { points: points.values, input, output, outputAt } };
 }
 
-/** Goal seek: find the value of `input` in [from, to] at which `output` equals `target`. */
-export interface GoalSeekRequest {
+/** Solving for a target: find the value of `input` in [from, to] at which `output` equals `target`. */
+export interface TargetSolveRequest {
   readonly input: string;
   readonly from: number | string;
   readonly to: number | string;
@@ -234,16 +234,16 @@ export interface RowValue {
   readonly unit: string;
 }
 
-export type GoalSeekResult =
+export type TargetSolveResult =
   | { readonly status: 'solved'; readonly input: RowValue; readonly output: RowValue }
   | { readonly status: 'no_solution'; readonly message: string };
 
 /**
- * Goal seek by scanning the range for a sign change of output − target, then bisecting.
+ * Solving for a target by scanning the range for a sign change of output − target, then bisecting.
  * The answer is checked by evaluating the sheet with HyperFormula at the value found; the output
  * reported is HyperFormula's. When the range holds no solution, says what the output spans there.
  */
-export function goalSeek(sheet: Sheet, request: GoalSeekRequest): AnalysisResult<GoalSeekResult> {
+export function solveForTarget(sheet: Sheet, request: TargetSolveRequest): AnalysisResult<TargetSolveResult> {
   const scan = scanOf(sheet, { ...request, samples: request.samples ?? 200 });
   const outputParameter = sheet.parameters.find((candidate) => candidate.key === request.output);
   const target = outputParameter === undefined ? undefined : valueInRowUnit(outputParameter, request.target);
@@ -290,7 +290,7 @@ function findRoot(points: Float64Array, residuals: readonly number[], residual: 
 }
 
 function noSolutionMessage(
-  request: GoalSeekRequest,
+  request: TargetSolveRequest,
   points: Float64Array,
   residuals: readonly number[],
   target: number,

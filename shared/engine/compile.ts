@@ -7,7 +7,7 @@ import { applyOverrides, type Evaluation, type Overrides } from '@/shared/engine
 import { fromSI } from '@/shared/engine/units';
 
 /**
- * Compiled evaluation for sweeps and goal seek. Each formula's parsed tree is turned into one
+ * Compiled evaluation for sweeps and solving for a target. Each formula's parsed tree is turned into one
  * JavaScript statement `v[i] = …;` over an array of SI values. The generated code is built only
  * from the tree: row indices, numbers re-printed by the engine, fixed operators and indices into
  * a fixed table of functions. No text the user typed ever reaches the generated source.

@@ -3,12 +3,12 @@ export { evaluateSheet, applyOverrides, type Evaluation, type Overrides } from '
 export { createSheetSession, valueInRowUnit, type EditResult, type EvaluatedValue, type SheetSession } from '@/shared/engine/session';
 export {
   findMaximum,
-  goalSeek,
+  solveForTarget,
   sweep,
   sweep2,
   type AnalysisResult,
-  type GoalSeekRequest,
-  type GoalSeekResult,
+  type TargetSolveRequest,
+  type TargetSolveResult,
   type MaximumRequest,
   type MaximumResult,
   type RowValue,

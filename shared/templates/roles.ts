@@ -56,6 +56,15 @@ export const standardHeadline: readonly RowRole[] = [
   'system_margin',
 ];
 
+/** The figures a sizing run solves for or charts first, in order: the first the sheet has is the default. */
+export const sizingTargetRoles: readonly RowRole[] = [
+  'characteristic_acceleration',
+  'areal_density',
+  'lightness_number',
+  'system_margin',
+  'sail_temperature',
+];
+
 /** An input a person may size (sweep, solve for) and the range offered by default, in the row's own unit. */
 export interface SizingInput {
   readonly role: RowRole;

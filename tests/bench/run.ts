@@ -1,7 +1,7 @@
 /**
  * `npm run bench`: medians of the engine's timings on this machine. Targets: single-edit
  * recompute on 1,000 parameters under 2 ms; a 10,000-point sweep of one input reading three
- * outputs under 200 ms; each What-if analysis on the template under 50 ms. A script, not a test: jest never runs it.
+ * outputs under 200 ms; each sandbox analysis on the template under 50 ms. A script, not a test: jest never runs it.
  */
 import { coneAngleSeries, filmThicknessTrade, temperatureVersusDistance } from '@/shared/analyses';
 import { sweep, type SweepAxis } from '@/shared/engine/analyses';
@@ -100,7 +100,7 @@ benchSweep('1,000-parameter sheet (p_0)', thousand, sweepOfFirst, lastThree(thou
 const tenThousand = syntheticSheet(10_000);
 benchSweep('10,000-parameter sheet (p_0)', tenThousand, sweepOfFirst, lastThree(tenThousand), 3);
 
-// The What-if and Sheet screens rerun these after every edit: each must fit well inside a frame budget of a few tens of ms.
+// The sandbox and Sheet screens rerun these after every edit: each must fit well inside a frame budget of a few tens of ms.
 {
   const template = squareSailTemplate();
   report(

@@ -16,7 +16,7 @@ function sailArea(page: Page): Promise<string> {
   return page.getByTestId('param-sail_area').innerText();
 }
 
-/** Opens What-if in a fresh Chromium at a viewport, runs the steps, and checks the page threw nothing. */
+/** Opens the sandbox in a fresh Chromium at a viewport, runs the steps, and checks the page threw nothing. */
 async function onWhatIf(viewport: (typeof viewports)[number], steps: (page: Page) => Promise<void>) {
   const browser = await launchBrowser();
   try {
@@ -37,7 +37,7 @@ describeInBrowser('what-if sizing in the browser', () => {
     'recomputes the sail area from an edited side and undoes it at $width x $height',
     (viewport) =>
       onWhatIf(viewport, async (page) => {
-        expect(await page.title()).toBe('What-if sizing · Trimsheet');
+        expect(await page.title()).toBe('Sizing sandbox · Trimsheet');
         // Geometry: the template's 40 m square has an area of 1600 m^2.
         expect(await sailArea(page)).toContain('1600 m²');
         await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}-start.png`) });
@@ -69,7 +69,7 @@ describeInBrowser('what-if sizing in the browser', () => {
   );
 
   it.each(viewports)(
-    'runs a goal seek on the template and shows the analyses at $width x $height',
+    'runs a solving for a target on the template and shows the analyses at $width x $height',
     (viewport) =>
       onWhatIf(viewport, async (page) => {
         const shot = (part: string) => page.screenshot({ path: path.join(artifactsDir, `what-if-analyses-${viewport.name}${part}.png`) });

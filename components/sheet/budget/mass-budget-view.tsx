@@ -9,7 +9,7 @@ import { colors, fonts, space } from '@/components/ui/theme';
 import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
-import { findRoleRows, roleValuesSI } from '@/shared/analyses';
+import { massAllocation } from '@/shared/analyses';
 import type { BudgetRollUp } from '@/shared/budget';
 
 // The subsystems' bars cycle through the palette's inks and accent so neighbours differ.
@@ -108,14 +108,7 @@ function BudgetTable({ budget, labelOf }: { budget: BudgetRollUp; labelOf: (key:
  */
 export function MassBudgetView({ snapshot }: { snapshot: SheetSnapshot }) {
   const { budget, sheet } = snapshot;
-  const allocation = useMemo(() => {
-    const found = roleValuesSI(sheet, { values: snapshot.values, errors: [...snapshot.errors] }, ['mass_allocation']);
-    return found.ok ? found.result.mass_allocation : undefined;
-  }, [sheet, snapshot]);
-  const allocationRow = useMemo(() => {
-    const rows = findRoleRows(sheet, ['mass_allocation']);
-    return rows.ok ? rows.result.mass_allocation.parameter.label : 'Mass allocation';
-  }, [sheet]);
+  const allocation = useMemo(() => (budget.ok ? massAllocation(sheet, budget.result) : undefined), [sheet, budget]);
   const labelOf = (key: string) => sheet.parameters.find((parameter) => parameter.key === key)?.label ?? key;
 
   return (
@@ -146,10 +139,10 @@ export function MassBudgetView({ snapshot }: { snapshot: SheetSnapshot }) {
           />
           {allocation !== undefined ? (
             <MarginBar
-              title={`Predicted mass against the ${allocationRow.toLowerCase()}`}
-              allocation={allocation}
+              title={`Predicted mass against the ${allocation.label.toLowerCase()}`}
+              allocation={allocation.kg}
               predicted={budget.result.total.predicted}
-              requiredMargin={(allocation * budget.result.systemMargin.requiredPercent) / 100}
+              requiredMargin={(allocation.kg * budget.result.systemMargin.requiredPercent) / 100}
               belowRequired={budget.result.systemMargin.belowRequired}
               valueLabel="Mass (kg)"
               formatValue={(value) => formatQuantity(value, 'kg')}

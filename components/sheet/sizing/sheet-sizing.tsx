@@ -12,8 +12,8 @@ import { editText, formatNumber, formatQuantity, formatUnit } from '@/shared/for
 import { AnalysisProblems } from '@/components/sizing/analyses/analysis-card';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
-import { roleSweep, sizeToTarget, sizingChoices, type RoleSweepResult } from '@/shared/analyses';
-import { valueInRowUnit, type GoalSeekResult } from '@/shared/engine';
+import { roleSweep, sizeToTarget, sizingChoices, sizingTargets, type RoleSweepResult } from '@/shared/analyses';
+import { valueInRowUnit, type TargetSolveResult } from '@/shared/engine';
 import type { Parameter, Sheet } from '@/shared/schemas/sheet';
 import { rowRoleDefinitions, sheetRoles, standardHeadline, type RowRole } from '@/shared/templates';
 import { axisTitle, chartNumber, lineColor } from '@/components/sizing/analyses/chart-text';
@@ -221,7 +221,7 @@ function TargetResult({
   curve,
   parameter,
   ...apply
-}: ApplyProps & { solved: GoalSeekResult; curve: RoleSweepResult | undefined; parameter: Parameter }) {
+}: ApplyProps & { solved: TargetSolveResult; curve: RoleSweepResult | undefined; parameter: Parameter }) {
   if (solved.status === 'no_solution') return <AnalysisProblems problems={[solved.message]} testID="sizing-target-none" />;
   const output = curve?.outputs[0];
   return (
@@ -258,7 +258,7 @@ function TargetResult({
 type TargetState =
   | { readonly status: 'idle' }
   | { readonly status: 'running' }
-  | { readonly status: 'done'; readonly solved: GoalSeekResult; readonly curve: RoleSweepResult | undefined }
+  | { readonly status: 'done'; readonly solved: TargetSolveResult; readonly curve: RoleSweepResult | undefined }
   | { readonly status: 'failed'; readonly problems: readonly string[] };
 
 type Mode = 'sweep' | 'target';
@@ -279,9 +279,10 @@ export function SheetSizing({ snapshot, canApply, onApply }: SheetSizingProps) {
   const [fromText, setFromText] = useState(input?.from ?? '');
   const [toText, setToText] = useState(input?.to ?? '');
   const [pointsText, setPointsText] = useState(defaultPoints);
-  const [chosenOutputs, setChosenOutputs] = useState<RowRole[]>(
-    outputs.includes('characteristic_acceleration') ? ['characteristic_acceleration'] : outputs.slice(0, 1),
-  );
+  const [chosenOutputs, setChosenOutputs] = useState<RowRole[]>(() => {
+    const preferred = sizingTargets(sheet).find((role) => outputs.includes(role));
+    return preferred === undefined ? outputs.slice(0, 1) : [preferred];
+  });
   const [targetRole, setTargetRole] = useState<RowRole | undefined>(chosenOutputs[0]);
   const [targetText, setTargetText] = useState('');
   const [problems, setProblems] = useState<string[]>([]);

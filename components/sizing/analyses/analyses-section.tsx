@@ -4,7 +4,7 @@ import { space } from '@/components/ui/theme';
 import type { SheetSnapshot } from '../use-sheet-session';
 import { ConeSweepAnalysis } from './cone-sweep';
 import { FilmThicknessAnalysis } from './film-thickness-trade';
-import { GoalSeekAnalysis } from './goal-seek';
+import { TargetSolveAnalysis } from './size-to-target';
 import { DragCrossoverAnalysis, SpiralAnalysis } from './mission-checks';
 import { TemperatureAnalysis } from './temperature-analysis';
 
@@ -15,7 +15,7 @@ export type AnalysesSectionProps = {
   onSetInput: (key: string, text: string) => void;
 };
 
-/** The analyses of the sheet being edited: sweep, goal seek, temperature and first-order mission checks. */
+/** The analyses of the sheet being edited: sweep, solving for a target, temperature and first-order mission checks. */
 export function AnalysesSection({ snapshot, onSetInput }: AnalysesSectionProps) {
   return (
     <View style={styles.section} testID="analyses">
@@ -23,7 +23,7 @@ export function AnalysesSection({ snapshot, onSetInput }: AnalysesSectionProps) 
       <AppText variant="muted">Run on the sheet as you have edited it; each result carries its caveat.</AppText>
       <ConeSweepAnalysis sheet={snapshot.sheet} />
       <FilmThicknessAnalysis sheet={snapshot.sheet} testID="analysis-film-thickness" />
-      <GoalSeekAnalysis sheet={snapshot.sheet} onApply={onSetInput} />
+      <TargetSolveAnalysis sheet={snapshot.sheet} onApply={onSetInput} />
       <TemperatureAnalysis sheet={snapshot.sheet} />
       <AppText variant="heading">Mission checks (first-order)</AppText>
       <DragCrossoverAnalysis snapshot={snapshot} />

@@ -48,7 +48,7 @@ describe('WhatIfScreen', () => {
   it('says what it is, that nothing is saved, and carries the caution beside the results', () => {
     renderScreen();
     expect(screen.getByTestId('what-if-screen')).toBeTruthy();
-    expect(screen.getByRole('heading', { name: 'What-if sizing' })).toBeTruthy();
+    expect(screen.getByRole('heading', { name: 'Sizing sandbox' })).toBeTruthy();
     expect(screen.getByText('Standard square-sail template, evaluated in your browser. Nothing here is saved.')).toBeTruthy();
     const caution =
       "Preliminary sizing estimates. Use your project's own margin policy, higher-fidelity analysis and licensed engineering practice for design decisions.";

@@ -142,7 +142,7 @@ describe('temperatureVersusDistance', () => {
     expect(temperature.values[0]).toBeCloseTo((temperature.values[18] ?? 0) * Math.sqrt(10), 6);
   });
 
-  it('finds the closest safe approach for the sheet film limit by goal seek on the temperature row', () => {
+  it('finds the closest safe approach for the sheet film limit by solving for a target on the temperature row', () => {
     const result = temperatureVersusDistance(sheet);
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     // Kapton HN datasheet (from memory): about 400 degC continuous service.

@@ -1,4 +1,4 @@
-import { findMaximum, goalSeek, sweep, sweep2 } from '@/shared/engine/analyses';
+import { findMaximum, solveForTarget, sweep, sweep2 } from '@/shared/engine/analyses';
 import { evaluateSheet } from '@/shared/engine/evaluate';
 import { squareSailTemplate } from '@/shared/templates';
 
@@ -62,9 +62,15 @@ describe('sweep', () => {
   });
 });
 
-describe('goalSeek', () => {
+describe('solveForTarget', () => {
   it('finds the sail side that gives a characteristic acceleration, checked with HyperFormula', () => {
-    const result = goalSeek(sheet, { input: 'sail_side', from: 10, to: 300, output: 'characteristic_acceleration', target: '0.1 mm/s^2' });
+    const result = solveForTarget(sheet, {
+      input: 'sail_side',
+      from: 10,
+      to: 300,
+      output: 'characteristic_acceleration',
+      target: '0.1 mm/s^2',
+    });
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(result.result.status).toBe('solved');
     if (result.result.status !== 'solved') return;
@@ -74,7 +80,7 @@ describe('goalSeek', () => {
   });
 
   it('finds the closest distance at which the film reaches a temperature limit', () => {
-    const result = goalSeek(sheet, { input: 'distance', from: 0.05, to: 1, output: 'sail_temperature', target: '400 degC' });
+    const result = solveForTarget(sheet, { input: 'distance', from: 0.05, to: 1, output: 'sail_temperature', target: '400 degC' });
     if (!result.ok || result.result.status !== 'solved') throw new Error(JSON.stringify(result));
     expect(result.result.output.value).toBeCloseTo(673.15, 6);
     // Radiative equilibrium (McInnes 1999 ch. 2): T ~ r^-1/2, so r = (263.22 / 673.15)^2 AU.
@@ -82,7 +88,7 @@ describe('goalSeek', () => {
   });
 
   it('says clearly when the range holds no solution', () => {
-    const result = goalSeek(sheet, { input: 'sail_side', from: 10, to: 100, output: 'characteristic_acceleration', target: 5 });
+    const result = solveForTarget(sheet, { input: 'sail_side', from: 10, to: 100, output: 'characteristic_acceleration', target: 5 });
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(result.result.status).toBe('no_solution');
     if (result.result.status !== 'no_solution') return;
@@ -92,7 +98,7 @@ describe('goalSeek', () => {
   });
 
   it('refuses a target of the wrong dimension', () => {
-    const result = goalSeek(sheet, { input: 'sail_side', from: 10, to: 100, output: 'srp_force', target: '3 kg' });
+    const result = solveForTarget(sheet, { input: 'sail_side', from: 10, to: 100, output: 'srp_force', target: '3 kg' });
     expect(result).toMatchObject({ ok: false, errors: [{ key: 'srp_force', code: 'dimension_mismatch' }] });
   });
 });

@@ -109,7 +109,7 @@ describe('AnalysesSection on the what-if workspace', () => {
     );
   });
 
-  it('names the row when a goal-seek range does not parse', () => {
+  it('names the row when a range to size over does not parse', () => {
     renderWorkspace();
     type('goal-seek-from', '10 kg');
     fireEvent.click(screen.getByTestId('goal-seek-run'));

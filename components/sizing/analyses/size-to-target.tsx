@@ -5,23 +5,14 @@ import { ChoiceChips } from '@/components/ui/choice-chips';
 import { TextField } from '@/components/ui/text-field';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, space } from '@/components/ui/theme';
-import { sizeToTarget, sizingChoices } from '@/shared/analyses';
-import type { AnalysisResult, GoalSeekResult } from '@/shared/engine';
+import { sizeToTarget, sizingChoices, sizingTargets } from '@/shared/analyses';
+import type { AnalysisResult, TargetSolveResult } from '@/shared/engine';
 import type { Sheet } from '@/shared/schemas/sheet';
 import { rowRoleDefinitions, sheetRoles, type RowRole } from '@/shared/templates';
 import { editText, formatQuantity, formatUnit } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems } from './analysis-card';
 
-/** The outputs a sizing review solves for, by role, when the sheet has them. */
-const outputRoles: readonly RowRole[] = [
-  'characteristic_acceleration',
-  'areal_density',
-  'lightness_number',
-  'system_margin',
-  'sail_temperature',
-];
-
-export type GoalSeekAnalysisProps = {
+export type TargetSolveAnalysisProps = {
   sheet: Sheet;
   /** Sets the solved input on the live sheet (an undoable edit). */
   onApply: (key: string, text: string) => void;
@@ -37,18 +28,15 @@ function withUnit(label: string, unit: string): string {
 }
 
 /** "Find <input> so that <output> = <target>" on the current sheet, solved when asked. */
-export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
+export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps) {
   const inputs = useMemo(() => sizingChoices(sheet).map((choice) => ({ ...choice, value: choice.role })), [sheet]);
-  const outputs = useMemo(() => {
-    const roles = sheetRoles(sheet);
-    return outputRoles.filter((role) => roles[role] !== undefined).map((role) => ({ value: role, label: rowRoleDefinitions[role].label }));
-  }, [sheet]);
-  const [input, setInput] = useState<RowRole>(inputs[0]?.role ?? 'sail_side');
-  const [output, setOutput] = useState<RowRole>(outputs[0]?.value ?? 'characteristic_acceleration');
+  const outputs = useMemo(() => sizingTargets(sheet).map((role) => ({ value: role, label: rowRoleDefinitions[role].label })), [sheet]);
+  const [chosenInput, setInput] = useState<RowRole | undefined>(inputs[0]?.role);
+  const [chosenOutput, setOutput] = useState<RowRole | undefined>(outputs[0]?.value);
   const [range, setRange] = useState({ from: inputs[0]?.from ?? '', to: inputs[0]?.to ?? '' });
   const [target, setTarget] = useState('0.5');
   // An answer belongs to the sheet it was solved on; after an edit it is no longer shown.
-  const [answer, setAnswer] = useState<{ sheet: Sheet; result: AnalysisResult<GoalSeekResult> } | undefined>(undefined);
+  const [answer, setAnswer] = useState<{ sheet: Sheet; result: AnalysisResult<TargetSolveResult> } | undefined>(undefined);
 
   const chooseInput = (role: RowRole) => {
     const choice = inputs.find((candidate) => candidate.role === role);
@@ -56,16 +44,28 @@ export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
     if (choice !== undefined) setRange({ from: choice.from, to: choice.to });
     setAnswer(undefined);
   };
+  const card = {
+    title: 'Size to a target',
+    summary: 'Find the input value at which an output reaches a target, everything else as on the sheet.',
+  };
+  const input = chosenInput;
+  const output = chosenOutput;
+  if (input === undefined || output === undefined) {
+    return (
+      <AnalysisCard {...card} testID="analysis-goal-seek">
+        <AnalysisProblems
+          problems={['This sheet has no row its template offers to size, or no figure to size it for.']}
+          testID="goal-seek-result"
+        />
+      </AnalysisCard>
+    );
+  }
   const run = () => setAnswer({ sheet, result: sizeToTarget(sheet, { input, output, from: range.from, to: range.to, target }) });
   const inputUnit = unitOf(sheet, input);
   const outputUnit = unitOf(sheet, output);
 
   return (
-    <AnalysisCard
-      title="Goal seek"
-      summary="Find the input value at which an output reaches a target, everything else as on the sheet."
-      testID="analysis-goal-seek"
-    >
+    <AnalysisCard {...card} testID="analysis-goal-seek">
       <ChoiceChips label="Find" choices={inputs} value={input} onChange={chooseInput} testID="goal-seek-input" />
       <ChoiceChips
         label="So that"
@@ -106,12 +106,18 @@ export function GoalSeekAnalysis({ sheet, onApply }: GoalSeekAnalysisProps) {
         </View>
       </View>
       <Button label="Solve" onPress={run} testID="goal-seek-run" style={styles.run} />
-      {answer?.sheet === sheet ? <GoalSeekAnswer answer={answer.result} onApply={onApply} /> : null}
+      {answer?.sheet === sheet ? <TargetSolveAnswer answer={answer.result} onApply={onApply} /> : null}
     </AnalysisCard>
   );
 }
 
-function GoalSeekAnswer({ answer, onApply }: { answer: AnalysisResult<GoalSeekResult>; onApply: GoalSeekAnalysisProps['onApply'] }) {
+function TargetSolveAnswer({
+  answer,
+  onApply,
+}: {
+  answer: AnalysisResult<TargetSolveResult>;
+  onApply: TargetSolveAnalysisProps['onApply'];
+}) {
   if (!answer.ok) return <AnalysisProblems problems={answer.errors.map((error) => error.message)} testID="goal-seek-result" />;
   const { result } = answer;
   if (result.status === 'no_solution') {
