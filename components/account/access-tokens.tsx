@@ -164,8 +164,8 @@ export function AccessTokens() {
 
 const styles = StyleSheet.create({
   form: { gap: space.md },
-  secret: { gap: space.sm, padding: space.md, borderRadius: radii.md, backgroundColor: colors.accentSoft },
-  secretText: { color: colors.ink, fontSize: 14, padding: space.sm, backgroundColor: colors.surface, borderRadius: radii.sm },
+  secret: { gap: space.sm, padding: space.md, borderRadius: radii.md, backgroundColor: colors.filmWash },
+  secretText: { color: colors.ink, fontSize: 14, padding: space.sm, backgroundColor: colors.panel, borderRadius: radii.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.md, padding: space.lg },
   who: { flexShrink: 1, gap: 2 },
   inline: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },

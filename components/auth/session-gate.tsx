@@ -30,5 +30,5 @@ export function SessionGate({ children }: SessionGateProps) {
 }
 
 const styles = StyleSheet.create({
-  page: { flex: 1, justifyContent: 'center', padding: space.lg, backgroundColor: colors.background },
+  page: { flex: 1, justifyContent: 'center', padding: space.lg, backgroundColor: colors.ground },
 });

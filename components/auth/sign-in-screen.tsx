@@ -71,8 +71,8 @@ export function SignInScreen({ error }: SignInScreenProps) {
 }
 
 const styles = StyleSheet.create({
-  page: { flex: 1, backgroundColor: colors.background, alignItems: 'center', justifyContent: 'center', padding: space.lg },
+  page: { flex: 1, backgroundColor: colors.ground, alignItems: 'center', justifyContent: 'center', padding: space.lg },
   card: { width: '100%', maxWidth: 420, padding: space.xl, gap: space.lg },
-  error: { backgroundColor: colors.dangerSoft, borderRadius: 10, padding: space.md },
+  error: { backgroundColor: colors.faultWash, borderRadius: 10, padding: space.md },
   buttons: { gap: space.md },
 });

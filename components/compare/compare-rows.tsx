@@ -145,5 +145,5 @@ export function CompareRows({ added, removed, changed, wide }: CompareRowsProps)
 const styles = StyleSheet.create({
   sections: { gap: space.xl },
   section: { gap: space.sm },
-  change: { gap: 2, paddingTop: space.xs, borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.border },
+  change: { gap: 2, paddingTop: space.xs, borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.rule },
 });

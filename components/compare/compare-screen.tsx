@@ -304,7 +304,7 @@ export function CompareScreen({ craftId, ...params }: CompareScreenProps) {
 }
 
 const styles = StyleSheet.create({
-  root: { flex: 1, backgroundColor: colors.background },
+  root: { flex: 1, backgroundColor: colors.ground },
   content: { width: '100%', maxWidth: 1280, alignSelf: 'center', gap: space.lg, paddingHorizontal: space.lg, paddingBottom: space.xxl },
   header: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.md },
   title: { flexShrink: 1 },

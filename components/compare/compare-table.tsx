@@ -71,8 +71,8 @@ export function MonoText({ children, testID }: { children: string; testID?: stri
 }
 
 const styles = StyleSheet.create({
-  table: { borderWidth: 1, borderColor: colors.border, borderRadius: radii.md, backgroundColor: colors.surface, overflow: 'hidden' },
-  header: { backgroundColor: colors.surfaceSunken, borderBottomWidth: 1, borderBottomColor: colors.border },
+  table: { borderWidth: 1, borderColor: colors.rule, borderRadius: radii.md, backgroundColor: colors.panel, overflow: 'hidden' },
+  header: { backgroundColor: colors.recess, borderBottomWidth: 1, borderBottomColor: colors.rule },
   cells: {
     flexDirection: 'row',
     alignItems: 'flex-start',
@@ -80,7 +80,7 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.md,
     paddingVertical: space.xs,
   },
-  entry: { borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.border },
+  entry: { borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.rule },
   text: { fontSize: fontSizes.small, lineHeight: 18 },
   name: { fontFamily: fonts.medium },
   mono: { fontFamily: fonts.mono, fontSize: fontSizes.small, lineHeight: 18, color: colors.ink, fontVariant: ['tabular-nums'] },

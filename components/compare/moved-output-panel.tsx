@@ -51,7 +51,7 @@ function partsOf(moved: MovedOutput): Part[] {
     detail: `${formatQuantity(input.from, input.unit)} → ${formatQuantity(input.to, input.unit)}`,
     share: input.share,
     // The palette's accent for what raised the output, its ink for what lowered it.
-    color: input.share >= 0 ? colors.accent : colors.ink,
+    color: input.share >= 0 ? colors.film : colors.ink,
     input,
   }));
   const hidden: Part[] =
@@ -177,5 +177,5 @@ const styles = StyleSheet.create({
   header: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md },
   title: { flexShrink: 1 },
   list: { gap: space.sm },
-  part: { gap: 2, paddingTop: space.xs, borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.border },
+  part: { gap: 2, paddingTop: space.xs, borderTopWidth: StyleSheet.hairlineWidth, borderTopColor: colors.rule },
 });

@@ -30,7 +30,7 @@ export function CraftCard({ craft }: { craft: Craft }) {
 }
 
 const styles = StyleSheet.create({
-  card: { borderLeftWidth: 4, borderLeftColor: colors.accent },
+  card: { borderLeftWidth: 4, borderLeftColor: colors.film },
   top: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'center', gap: space.sm },
   name: { flexShrink: 1 },
 });

@@ -109,14 +109,14 @@ const styles = StyleSheet.create({
   option: {
     minHeight: touchTarget,
     borderWidth: 1,
-    borderColor: colors.border,
+    borderColor: colors.rule,
     borderRadius: radii.md,
-    backgroundColor: colors.surface,
+    backgroundColor: colors.panel,
     paddingVertical: space.sm,
     paddingHorizontal: space.md,
     gap: 2,
   },
-  selected: { borderColor: colors.accent, borderWidth: 2, backgroundColor: colors.accentSoft },
+  selected: { borderColor: colors.film, borderWidth: 2, backgroundColor: colors.filmWash },
   pressed: { opacity: 0.8 },
   title: { fontFamily: fonts.semibold },
 });

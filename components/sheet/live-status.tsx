@@ -27,10 +27,10 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.sm,
     paddingVertical: 2,
     borderRadius: radii.pill,
-    backgroundColor: colors.surfaceSunken,
+    backgroundColor: colors.recess,
   },
   dot: { width: 8, height: 8, borderRadius: 4 },
-  live: { backgroundColor: colors.success },
-  waiting: { backgroundColor: colors.accent },
+  live: { backgroundColor: colors.nominal },
+  waiting: { backgroundColor: colors.film },
   text: { fontSize: fontSizes.small, lineHeight: 18, color: colors.inkMuted },
 });

@@ -29,7 +29,7 @@ const styles = StyleSheet.create({
     width: '100%',
     maxWidth: 640,
     maxHeight: '90%',
-    backgroundColor: colors.surface,
+    backgroundColor: colors.panel,
     borderTopLeftRadius: radii.lg,
     borderTopRightRadius: radii.lg,
     padding: space.lg,

@@ -122,7 +122,7 @@ export function SheetScreen({ craftId, requestedRevisionId }: { craftId: string;
 }
 
 const styles = StyleSheet.create({
-  root: { flex: 1, backgroundColor: colors.background },
+  root: { flex: 1, backgroundColor: colors.ground },
   header: {
     flexDirection: 'row',
     alignItems: 'center',

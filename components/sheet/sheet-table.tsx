@@ -231,10 +231,10 @@ export const SheetTable = memo(function SheetTable(props: SheetTableProps) {
 });
 
 const styles = StyleSheet.create({
-  scroll: { flex: 1, borderWidth: 1, borderColor: colors.border, borderRadius: radii.md, backgroundColor: colors.surface },
-  header: { backgroundColor: colors.surfaceSunken, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.border },
+  scroll: { flex: 1, borderWidth: 1, borderColor: colors.rule, borderRadius: radii.md, backgroundColor: colors.panel },
+  header: { backgroundColor: colors.recess, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.rule },
   cells: { flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md },
-  row: { paddingVertical: 3, borderBottomWidth: StyleSheet.hairlineWidth, borderBottomColor: colors.border, paddingRight: space.md },
+  row: { paddingVertical: 3, borderBottomWidth: StyleSheet.hairlineWidth, borderBottomColor: colors.rule, paddingRight: space.md },
   groupCell: { flex: 1 },
   groupHeader: {
     flexDirection: 'row',
@@ -242,9 +242,9 @@ const styles = StyleSheet.create({
     gap: space.md,
     minHeight: 36,
     paddingHorizontal: space.md,
-    backgroundColor: colors.background,
+    backgroundColor: colors.ground,
     borderBottomWidth: 1,
-    borderBottomColor: colors.border,
+    borderBottomColor: colors.rule,
   },
   groupTitle: { fontFamily: fonts.semibold },
   groupReason: { flex: 1, textAlign: 'right' },
@@ -255,8 +255,8 @@ const styles = StyleSheet.create({
   number: { textAlign: 'right' },
   readOnlyValue: { color: colors.inkMuted, textAlign: 'right' },
   small: { fontSize: fontSizes.small, lineHeight: 18 },
-  ok: { color: colors.success },
-  problem: { color: colors.danger },
+  ok: { color: colors.nominal },
+  problem: { color: colors.fault },
   more: { minHeight: 32, justifyContent: 'center', alignItems: 'center', borderRadius: radii.sm },
-  moreText: { color: colors.accent, fontFamily: fonts.semibold, fontSize: fontSizes.small },
+  moreText: { color: colors.film, fontFamily: fonts.semibold, fontSize: fontSizes.small },
 });

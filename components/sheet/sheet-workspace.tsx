@@ -228,7 +228,7 @@ const styles = StyleSheet.create({
   side: { width: 300, flexGrow: 0 },
   scrolled: { gap: space.lg, paddingBottom: space.xl },
   phone: { gap: space.md, padding: space.md, paddingBottom: space.xxl },
-  sticky: { backgroundColor: colors.background, paddingBottom: space.sm },
+  sticky: { backgroundColor: colors.ground, paddingBottom: space.sm },
   header: { gap: space.sm },
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   grow: { flex: 1 },

@@ -108,10 +108,10 @@ export function ValueInput({ parameter, computed, invalid, actions, navigation, 
 
 const styles = StyleSheet.create({
   input: {
-    borderColor: colors.border,
+    borderColor: colors.rule,
     borderWidth: 1,
     borderRadius: radii.sm,
-    backgroundColor: colors.surface,
+    backgroundColor: colors.panel,
     color: colors.ink,
     fontFamily: fonts.mono,
     fontSize: fontSizes.small,
@@ -123,5 +123,5 @@ const styles = StyleSheet.create({
   // In the table the field's size never follows its text: contained, typing lays out the field alone (web).
   compact: { minHeight: 32, width: '100%', ...((Platform.OS === 'web' ? { contain: 'size layout' } : {}) as TextStyle) },
   full: { minHeight: 44, fontSize: fontSizes.body },
-  invalid: { borderColor: colors.danger, backgroundColor: colors.dangerSoft },
+  invalid: { borderColor: colors.fault, backgroundColor: colors.faultWash },
 });

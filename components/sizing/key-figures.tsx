@@ -103,5 +103,5 @@ const styles = StyleSheet.create({
   wide: { flexBasis: '100%' },
   value: { fontFamily: fonts.monoMedium, fontSize: 18, lineHeight: 24, color: colors.ink },
   missing: { color: colors.inkFaint },
-  flagged: { color: colors.danger },
+  flagged: { color: colors.fault },
 });

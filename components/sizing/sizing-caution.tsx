@@ -15,11 +15,11 @@ export function SizingCaution({ testID }: { testID?: string }) {
 const styles = StyleSheet.create({
   box: {
     borderLeftWidth: 3,
-    borderLeftColor: colors.accent,
-    backgroundColor: colors.accentSoft,
+    borderLeftColor: colors.film,
+    backgroundColor: colors.filmWash,
     borderRadius: radii.sm,
     paddingVertical: space.sm,
     paddingHorizontal: space.md,
   },
-  text: { color: colors.accentPressed, fontSize: fontSizes.small, lineHeight: 18 },
+  text: { color: colors.filmPressed, fontSize: fontSizes.small, lineHeight: 18 },
 });

@@ -12,7 +12,7 @@ type NavItemProps = TabTriggerSlotProps & { label: string; icon: NavIconName; pl
 
 function NavItem({ label, icon, placement, isFocused = false, ...props }: NavItemProps) {
   const side = placement === 'side';
-  const color = side ? (isFocused ? colors.accentOnInk : colors.background) : isFocused ? colors.accent : colors.inkMuted;
+  const color = side ? (isFocused ? colors.filmOnInk : colors.ground) : isFocused ? colors.film : colors.inkMuted;
   return (
     <Pressable
       {...props}
@@ -79,8 +79,8 @@ export function AppNavigation({ showPeople }: AppNavigationProps) {
 
 const styles = StyleSheet.create({
   // The slot comes first in reading order; row-reverse then puts the side list on the left.
-  rootSide: { flex: 1, flexDirection: 'row-reverse', backgroundColor: colors.background },
-  rootBottom: { flex: 1, flexDirection: 'column', backgroundColor: colors.background },
+  rootSide: { flex: 1, flexDirection: 'row-reverse', backgroundColor: colors.ground },
+  rootBottom: { flex: 1, flexDirection: 'column', backgroundColor: colors.ground },
   slot: { flex: 1 },
   side: {
     width: 232,
@@ -94,12 +94,12 @@ const styles = StyleSheet.create({
   bottom: {
     flexDirection: 'row',
     justifyContent: 'space-around',
-    backgroundColor: colors.surface,
+    backgroundColor: colors.panel,
     borderTopWidth: 1,
-    borderTopColor: colors.border,
+    borderTopColor: colors.rule,
   },
   brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.sm, marginBottom: space.xl },
-  brandText: { color: colors.background, fontFamily: fonts.bold, fontSize: 20 },
+  brandText: { color: colors.ground, fontFamily: fonts.bold, fontSize: 20 },
   sideItem: {
     minHeight: touchTarget,
     flexDirection: 'row',
@@ -120,6 +120,6 @@ const styles = StyleSheet.create({
     gap: 2,
     paddingVertical: space.xs,
   },
-  bottomItemFocused: { borderTopColor: colors.accent },
+  bottomItemFocused: { borderTopColor: colors.film },
   bottomLabel: { fontFamily: fonts.medium, fontSize: 12, lineHeight: 16 },
 });

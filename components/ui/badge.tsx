@@ -17,9 +17,9 @@ const styles = StyleSheet.create({
     borderRadius: radii.pill,
     paddingHorizontal: space.sm,
     paddingVertical: 2,
-    backgroundColor: colors.surfaceSunken,
+    backgroundColor: colors.recess,
   },
-  strong: { backgroundColor: colors.accentSoft },
+  strong: { backgroundColor: colors.filmWash },
   text: { fontFamily: fonts.medium, fontSize: 12, lineHeight: 18, color: colors.inkMuted },
-  strongText: { color: colors.accentPressed },
+  strongText: { color: colors.filmPressed },
 });

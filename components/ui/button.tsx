@@ -25,7 +25,7 @@ export function Button({ label, tone = 'primary', busy = false, disabled, style,
       style={({ pressed }) => [styles.base, styles[tone], pressed && pressedStyles[tone], inactive && styles.inactive, style]}
       {...props}
     >
-      {busy ? <ActivityIndicator size="small" color={tone === 'primary' || tone === 'danger' ? colors.onAccent : colors.ink} /> : null}
+      {busy ? <ActivityIndicator size="small" color={tone === 'primary' || tone === 'danger' ? colors.onFilm : colors.ink} /> : null}
       <AppText style={[styles.label, labelStyles[tone]]}>{label}</AppText>
     </Pressable>
   );
@@ -42,24 +42,24 @@ const styles = StyleSheet.create({
     justifyContent: 'center',
     gap: space.sm,
   },
-  primary: { backgroundColor: colors.accent, borderColor: colors.accent },
-  secondary: { backgroundColor: colors.surface, borderColor: colors.ink },
-  danger: { backgroundColor: colors.danger, borderColor: colors.danger },
+  primary: { backgroundColor: colors.film, borderColor: colors.film },
+  secondary: { backgroundColor: colors.panel, borderColor: colors.ink },
+  danger: { backgroundColor: colors.fault, borderColor: colors.fault },
   quiet: { backgroundColor: 'transparent', borderColor: 'transparent', paddingHorizontal: space.sm },
   inactive: { opacity: 0.55 },
   label: { fontFamily: fonts.semibold },
 });
 
 const pressedStyles = StyleSheet.create({
-  primary: { backgroundColor: colors.accentPressed },
-  secondary: { backgroundColor: colors.surfaceSunken },
+  primary: { backgroundColor: colors.filmPressed },
+  secondary: { backgroundColor: colors.recess },
   danger: { opacity: 0.85 },
-  quiet: { backgroundColor: colors.surfaceSunken },
+  quiet: { backgroundColor: colors.recess },
 });
 
 const labelStyles = StyleSheet.create({
-  primary: { color: colors.onAccent },
+  primary: { color: colors.onFilm },
   secondary: { color: colors.ink },
-  danger: { color: colors.onAccent },
-  quiet: { color: colors.accent },
+  danger: { color: colors.onFilm },
+  quiet: { color: colors.film },
 });

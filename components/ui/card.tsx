@@ -8,8 +8,8 @@ export function Card({ style, ...props }: ViewProps) {
 
 const styles = StyleSheet.create({
   card: {
-    backgroundColor: colors.surface,
-    borderColor: colors.border,
+    backgroundColor: colors.panel,
+    borderColor: colors.rule,
     borderWidth: 1,
     borderRadius: radii.lg,
     padding: space.lg,

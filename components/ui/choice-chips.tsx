@@ -48,10 +48,10 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.md,
     borderRadius: radii.pill,
     borderWidth: 1,
-    borderColor: colors.border,
-    backgroundColor: colors.surface,
+    borderColor: colors.rule,
+    backgroundColor: colors.panel,
   },
   selected: { borderColor: colors.ink, backgroundColor: colors.ink },
   text: { fontFamily: fonts.medium, color: colors.ink },
-  selectedText: { color: colors.surface },
+  selectedText: { color: colors.panel },
 });

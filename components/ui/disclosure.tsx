@@ -38,6 +38,6 @@ export function Disclosure({ label, summary, children, testID }: DisclosureProps
 const styles = StyleSheet.create({
   trigger: { minHeight: touchTarget, justifyContent: 'center', paddingRight: space.md, gap: 2 },
   pressed: { opacity: 0.7 },
-  label: { color: colors.accent, fontFamily: fonts.medium, fontSize: fontSizes.small, lineHeight: 18 },
+  label: { color: colors.film, fontFamily: fonts.medium, fontSize: fontSizes.small, lineHeight: 18 },
   body: { gap: space.xs, paddingTop: space.xs },
 });

@@ -18,6 +18,6 @@ export function DividedList({ children, testID }: { children: ReactNode; testID?
 }
 
 const styles = StyleSheet.create({
-  list: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radii.lg, overflow: 'hidden' },
-  divider: { height: 1, backgroundColor: colors.border },
+  list: { backgroundColor: colors.panel, borderColor: colors.rule, borderWidth: 1, borderRadius: radii.lg, overflow: 'hidden' },
+  divider: { height: 1, backgroundColor: colors.rule },
 });

@@ -81,8 +81,8 @@ export function LineChart(props: LineChartProps) {
 
   const legend: LegendEntry[] = [
     ...series.map((entry): LegendEntry => ({ label: entry.label, color: entry.color, kind: entry.dashed === true ? 'dashed' : 'line' })),
-    ...(marker !== undefined ? [{ label: marker.label, color: colors.accent, kind: 'rule' as const }] : []),
-    ...(reference !== undefined ? [{ label: reference.label, color: colors.danger, kind: 'rule' as const }] : []),
+    ...(marker !== undefined ? [{ label: marker.label, color: colors.film, kind: 'rule' as const }] : []),
+    ...(reference !== undefined ? [{ label: reference.label, color: colors.fault, kind: 'rule' as const }] : []),
   ];
 
   return (
@@ -96,7 +96,7 @@ export function LineChart(props: LineChartProps) {
     >
       {yTicks.map((tick) => (
         <G key={`y${tick}`}>
-          <Line x1={plotArea.left} x2={plotArea.right} y1={yScale(tick)} y2={yScale(tick)} stroke={colors.surfaceSunken} strokeWidth={1} />
+          <Line x1={plotArea.left} x2={plotArea.right} y1={yScale(tick)} y2={yScale(tick)} stroke={colors.recess} strokeWidth={1} />
           <SvgText x={plotArea.left - 4} y={yScale(tick) + 4} textAnchor="end" {...tickText}>
             {yFormat(tick)}
           </SvgText>
@@ -115,7 +115,7 @@ export function LineChart(props: LineChartProps) {
           x2={plotArea.right}
           y1={yScale(reference.y)}
           y2={yScale(reference.y)}
-          stroke={colors.danger}
+          stroke={colors.fault}
           strokeWidth={1.5}
           strokeDasharray="2 3"
         />
@@ -126,7 +126,7 @@ export function LineChart(props: LineChartProps) {
           x2={xScale(marker.x)}
           y1={plotArea.top}
           y2={plotArea.bottom}
-          stroke={colors.accent}
+          stroke={colors.film}
           strokeWidth={1.5}
           strokeDasharray="2 3"
         />

@@ -39,7 +39,7 @@ export function MarginBar({
     .domain([0, Math.max(allocation, predicted, Number.MIN_VALUE)])
     .range([margin.left, chartBox.width - margin.right]);
   const requiredAt = allocation - requiredMargin;
-  const marginColor = belowRequired ? colors.danger : colors.success;
+  const marginColor = belowRequired ? colors.fault : colors.nominal;
   const barBottom = margin.barTop + margin.barHeight;
   const [marginFrom, marginTo] = predicted <= allocation ? [predicted, allocation] : [allocation, predicted];
   const legend: LegendEntry[] = [
@@ -49,7 +49,7 @@ export function MarginBar({
       color: marginColor,
       kind: 'swatch',
     },
-    { label: 'Required margin starts', color: colors.accent, kind: 'rule' },
+    { label: 'Required margin starts', color: colors.film, kind: 'rule' },
   ];
   const summary =
     `Predicted ${formatValue(predicted)} of an allocation of ${formatValue(allocation)}; ` +
@@ -89,7 +89,7 @@ export function MarginBar({
         x2={scale(requiredAt)}
         y1={margin.barTop - 4}
         y2={barBottom + 4}
-        stroke={colors.accent}
+        stroke={colors.film}
         strokeWidth={2}
         strokeDasharray="2 2"
       />

@@ -34,7 +34,7 @@ export function Screen({ title, subtitle, aside, children }: ScreenProps) {
 }
 
 const styles = StyleSheet.create({
-  scroll: { flex: 1, backgroundColor: colors.background },
+  scroll: { flex: 1, backgroundColor: colors.ground },
   content: { paddingHorizontal: space.lg, paddingBottom: space.xxl },
   column: { width: '100%', maxWidth: contentMaxWidth, alignSelf: 'center', gap: space.xl },
   header: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', justifyContent: 'space-between', gap: space.md },

@@ -7,7 +7,7 @@ import { colors, space } from './theme';
 export function LoadingState({ label }: { label: string }) {
   return (
     <View style={styles.box} role="status" aria-live="polite">
-      <ActivityIndicator color={colors.accent} />
+      <ActivityIndicator color={colors.film} />
       <AppText variant="muted">{label}</AppText>
     </View>
   );
@@ -52,6 +52,6 @@ const styles = StyleSheet.create({
     paddingVertical: space.xxl,
     paddingHorizontal: space.lg,
   },
-  error: { backgroundColor: colors.dangerSoft, borderRadius: 16 },
+  error: { backgroundColor: colors.faultWash, borderRadius: 16 },
   centred: { textAlign: 'center' },
 });

@@ -38,10 +38,10 @@ const styles = StyleSheet.create({
   field: { gap: space.xs },
   input: {
     minHeight: touchTarget,
-    borderColor: colors.border,
+    borderColor: colors.rule,
     borderWidth: 1,
     borderRadius: radii.md,
-    backgroundColor: colors.surface,
+    backgroundColor: colors.panel,
     paddingHorizontal: space.md,
     paddingVertical: space.sm,
     color: colors.ink,
@@ -49,5 +49,5 @@ const styles = StyleSheet.create({
     fontSize: fontSizes.body,
   },
   multiline: { minHeight: 88, textAlignVertical: 'top' },
-  inputError: { borderColor: colors.danger, backgroundColor: colors.dangerSoft },
+  inputError: { borderColor: colors.fault, backgroundColor: colors.faultWash },
 });

@@ -23,5 +23,5 @@ const styles = StyleSheet.create({
   label: { fontFamily: fonts.medium, fontSize: fontSizes.small, lineHeight: 18, color: colors.inkMuted },
   muted: { color: colors.inkMuted },
   mono: { fontFamily: fonts.mono, fontSize: fontSizes.small, color: colors.inkMuted },
-  error: { color: colors.danger, fontFamily: fonts.medium, fontSize: fontSizes.small, lineHeight: 18 },
+  error: { color: colors.fault, fontFamily: fonts.medium, fontSize: fontSizes.small, lineHeight: 18 },
 });

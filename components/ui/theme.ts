@@ -1,25 +1,31 @@
 /**
  * Trimsheet design tokens: the one place for colour, type, spacing and breakpoints.
- * The palette is sailcloth off-white with deep ink-blue text and a single warm copper accent.
+ * Ink blue leads on a cool paper ground; the one accent is the amber of polyimide film (darker on light
+ * grounds, lighter on ink-blue panels). Every text colour here reads at 4.5:1 or better on every ground.
  */
 export const colors = {
-  background: '#F5F1E8',
-  surface: '#FFFDF8',
-  surfaceSunken: '#ECE6D8',
-  border: '#D9D1BF',
+  /** The page behind everything. */
+  ground: '#F2F4F8',
+  /** Cards, tables and fields that sit on the ground. */
+  panel: '#FFFFFF',
+  /** Wells set into a panel: read-only cells, code, tracks of bars. */
+  recess: '#E4E8F0',
+  /** Hairlines between rows and around panels. */
+  rule: '#CDD4E0',
   ink: '#14244A',
-  inkMuted: '#4F5C7A',
-  inkFaint: '#58627C',
-  accent: '#9E4716',
-  accentPressed: '#7A3510',
-  accentSoft: '#F6E3D3',
-  /** The accent as it reads on ink-blue panels. */
-  accentOnInk: '#F4A771',
-  onAccent: '#FFFFFF',
-  danger: '#A32A1F',
-  dangerSoft: '#F8E1DC',
-  success: '#2F6B3E',
-  focus: '#2F5BD3',
+  inkMuted: '#4A5775',
+  inkFaint: '#56617A',
+  film: '#8A5A00',
+  filmPressed: '#6E4800',
+  filmWash: '#F7EDD8',
+  /** The film amber as it reads on ink-blue panels. */
+  filmOnInk: '#E0B04A',
+  /** Text and marks drawn on the film amber. */
+  onFilm: '#FFFFFF',
+  fault: '#A32A1F',
+  faultWash: '#F8E1DC',
+  nominal: '#2F6B3E',
+  focusRing: '#2F5BD3',
 } as const;
 
 export const fonts = {

@@ -33,8 +33,8 @@ export function Toggle({ label, value, onChange, disabled = false, testID }: Tog
 const styles = StyleSheet.create({
   target: { minHeight: touchTarget, minWidth: touchTarget, justifyContent: 'center', alignItems: 'center' },
   disabled: { opacity: 0.55 },
-  track: { width: 40, height: 24, borderRadius: radii.pill, backgroundColor: colors.border, padding: 3 },
-  trackOn: { backgroundColor: colors.accent },
-  thumb: { width: 18, height: 18, borderRadius: radii.pill, backgroundColor: colors.surface },
+  track: { width: 40, height: 24, borderRadius: radii.pill, backgroundColor: colors.rule, padding: 3 },
+  trackOn: { backgroundColor: colors.film },
+  thumb: { width: 18, height: 18, borderRadius: radii.pill, backgroundColor: colors.panel },
   thumbOn: { transform: [{ translateX: 16 }] },
 });

@@ -49,9 +49,9 @@ function fontPath([family, weight, file]: readonly [string, string, string]): st
 }
 
 const ink = '#14244A';
-const muted = '#4F5C7A';
-const rule = '#D9D1BF';
-const accent = '#9E4716';
+const muted = '#4A5775';
+const rule = '#CDD4E0';
+const accent = '#8A5A00';
 const danger = '#A32A1F';
 const page = { margin: 50, footer: 40 };
 

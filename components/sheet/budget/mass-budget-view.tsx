@@ -13,7 +13,7 @@ import { massAllocation } from '@/shared/analyses';
 import type { BudgetRollUp } from '@/shared/budget';
 
 // The subsystems' bars cycle through the palette's inks and accent so neighbours differ.
-const barColors = [colors.ink, colors.accent, colors.inkMuted, colors.success, colors.focus, colors.accentPressed];
+const barColors = [colors.ink, colors.film, colors.inkMuted, colors.nominal, colors.focusRing, colors.filmPressed];
 
 /** A share of the total as "42.1 %"; "—" when there is no total. */
 function share(part: number, total: number): string {

@@ -110,7 +110,7 @@ function TemperaturePlot({ snapshot }: { snapshot: SheetSnapshot }) {
       <LineChart
         title="Sail film temperature versus distance from the Sun"
         x={distance.values}
-        series={[{ label: temperature.label, color: colors.accent, values: temperature.values }]}
+        series={[{ label: temperature.label, color: colors.film, values: temperature.values }]}
         xLabel={axisTitle(distance.label, distance.unit)}
         yLabel={axisTitle(temperature.label, temperature.unit)}
         reference={limit === undefined ? undefined : { y: limit.kelvin, label: `Film limit ${formatQuantity(limit.kelvin, 'K')}` }}

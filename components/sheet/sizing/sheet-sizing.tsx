@@ -234,7 +234,7 @@ function TargetResult({
         <LineChart
           title={`${output.label} versus ${curve.input.label.toLowerCase()}, with the target`}
           x={curve.input.values}
-          series={[{ label: output.label, color: colors.accent, values: output.values }]}
+          series={[{ label: output.label, color: colors.film, values: output.values }]}
           xLabel={axisTitle(curve.input.label, curve.input.unit)}
           yLabel={axisTitle(output.label, output.unit)}
           marker={{ x: solved.input.value, label: `Solution ${formatQuantity(solved.input.value, solved.input.unit)}` }}
@@ -473,11 +473,11 @@ const styles = StyleSheet.create({
   rangeField: { flexGrow: 1, flexBasis: 140 },
   start: { alignSelf: 'flex-start' },
   progress: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.md },
-  track: { flexGrow: 1, minWidth: 160, height: 8, borderRadius: radii.pill, backgroundColor: colors.surfaceSunken, overflow: 'hidden' },
-  fill: { height: 8, backgroundColor: colors.accent },
+  track: { flexGrow: 1, minWidth: 160, height: 8, borderRadius: radii.pill, backgroundColor: colors.recess, overflow: 'hidden' },
+  fill: { height: 8, backgroundColor: colors.film },
   result: { gap: space.md },
   answer: { color: colors.ink, fontSize: 15 },
-  table: { borderWidth: 1, borderColor: colors.border, borderRadius: radii.md, overflow: 'hidden' },
+  table: { borderWidth: 1, borderColor: colors.rule, borderRadius: radii.md, overflow: 'hidden' },
   tableRow: {
     flexDirection: 'row',
     alignItems: 'center',
@@ -485,7 +485,7 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.md,
     paddingVertical: space.xs,
     borderBottomWidth: 1,
-    borderBottomColor: colors.surfaceSunken,
+    borderBottomColor: colors.recess,
   },
   cell: { flex: 1, minWidth: 80 },
   number: { textAlign: 'right', color: colors.ink, fontVariant: ['tabular-nums'] },

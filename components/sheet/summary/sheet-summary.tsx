@@ -99,13 +99,13 @@ export function SheetSummary({ snapshot }: { snapshot: SheetSnapshot }) {
 
 const styles = StyleSheet.create({
   card: { gap: space.sm },
-  flaggedCard: { borderColor: colors.danger },
+  flaggedCard: { borderColor: colors.fault },
   grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.sm },
   row: { columnGap: space.lg },
   figure: { flexGrow: 1, flexBasis: 110, minWidth: 110, gap: 2 },
   compactFigure: { flexGrow: 0, flexBasis: 'auto' },
-  flaggedFigure: { borderLeftWidth: 3, borderLeftColor: colors.danger, paddingLeft: space.sm, backgroundColor: colors.dangerSoft },
+  flaggedFigure: { borderLeftWidth: 3, borderLeftColor: colors.fault, paddingLeft: space.sm, backgroundColor: colors.faultWash },
   value: { fontFamily: fonts.monoMedium, fontSize: 17, lineHeight: 24, color: colors.ink, fontVariant: ['tabular-nums'] },
   missing: { color: colors.inkFaint },
-  flaggedValue: { color: colors.danger },
+  flaggedValue: { color: colors.fault },
 });

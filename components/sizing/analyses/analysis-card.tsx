@@ -61,7 +61,7 @@ export function ResultFigure({ label, value, testID }: { label: string; value: s
 
 const styles = StyleSheet.create({
   // A result's own caveat reads as part of the result: sunken like a footnote, not the accent of the general caution.
-  caveat: { backgroundColor: colors.surfaceSunken, borderRadius: radii.md, padding: space.md, gap: 2 },
+  caveat: { backgroundColor: colors.recess, borderRadius: radii.md, padding: space.md, gap: 2 },
   caveatText: { color: colors.ink, fontSize: fontSizes.small, lineHeight: 18 },
   problems: { gap: space.xs },
   figure: { gap: 2 },

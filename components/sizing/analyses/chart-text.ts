@@ -13,7 +13,7 @@ export function chartNumber(value: number): string {
 }
 
 /** Line colours in drawing order: the palette's inks first, then the accent and the others. */
-export const lineColors = [colors.ink, colors.inkFaint, colors.accent, colors.success, colors.focus] as const;
+export const lineColors = [colors.ink, colors.inkFaint, colors.film, colors.nominal, colors.focusRing] as const;
 
 /** The colour of the i-th line, cycling through `lineColors`. */
 export function lineColor(index: number): string {

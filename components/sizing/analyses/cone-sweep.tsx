@@ -14,9 +14,9 @@ import { degrees } from './sheet-values';
 const lineStyles: Partial<Record<RowRole, { color: string; dashed?: boolean }>> = {
   srp_force_normal: { color: colors.ink },
   srp_force_transverse: { color: colors.inkFaint },
-  srp_force_optical: { color: colors.accent },
-  srp_force: { color: colors.success, dashed: true },
-  srp_force_circumferential: { color: colors.focus },
+  srp_force_optical: { color: colors.film },
+  srp_force: { color: colors.nominal, dashed: true },
+  srp_force_circumferential: { color: colors.focusRing },
 };
 
 /** The accelerations drawn: the whole force of each model. */

@@ -49,7 +49,7 @@ export function TemperatureAnalysis({ sheet }: { sheet: Sheet }) {
           <LineChart
             title="Sail film temperature versus heliocentric distance"
             x={result.result.distance.values}
-            series={[{ label: 'Film temperature', color: colors.accent, values: result.result.temperature.values }]}
+            series={[{ label: 'Film temperature', color: colors.film, values: result.result.temperature.values }]}
             xLabel={`Distance from the Sun (${formatUnit(result.result.distance.unit)})`}
             yLabel={`Temperature (${formatUnit(result.result.temperature.unit)})`}
             reference={limit.ok && result.result.temperature.unit === 'K' ? { y: limit.value, label: 'Temperature limit' } : undefined}
