@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ConnectionError } from 'sequelize';
 import { HttpError } from '../http-error';
 
 /** JSON 404 for any /api path no route answered. */
@@ -41,6 +42,20 @@ function requestFault(error: BodyParserError): HttpError | undefined {
   return undefined;
 }
 
+/** SQLSTATEs and socket errors that mean PostgreSQL is gone or not accepting connections, not that the query was wrong. */
+const unavailableCodes = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ENOTFOUND', '57P01', '57P02', '57P03', '53300']);
+
+/** Whether the error says the database cannot be reached (refused, shut down, connection cut), for a 503. */
+function databaseUnavailable(error: unknown): boolean {
+  if (error instanceof ConnectionError) return true;
+  const wrapped = error as { code?: string; message?: string; parent?: { code?: string; message?: string } } | undefined;
+  return [wrapped, wrapped?.parent].some(
+    (candidate) =>
+      (candidate?.code !== undefined && (unavailableCodes.has(candidate.code) || candidate.code.startsWith('08'))) ||
+      /^Connection terminated|not queryable/.test(candidate?.message ?? ''),
+  );
+}
+
 /** Turns every error into { error: { code, message, details? } }; never a stack trace to the client. */
 export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _next) => {
   let httpError: HttpError;
@@ -52,6 +67,10 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
   else if (parserError?.type === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large');
   else if (parserError?.status === 403 && /csrf/i.test(parserError.message ?? '')) {
     httpError = new HttpError(403, 'invalid_csrf_token', 'The CSRF token is missing or wrong; reload the page and try again');
+  } else if (databaseUnavailable(error)) {
+    httpError = new HttpError(503, 'database_unavailable', 'The database does not answer; try again in a moment');
+    res.setHeader('Retry-After', '5');
+    console.warn(`[trimsheet] ${req.method} ${req.originalUrl}: the database does not answer`);
   } else if ((fault = requestFault(parserError))) {
     httpError = fault;
     console.warn(`[trimsheet] refused ${req.method} ${req.originalUrl}: ${httpError.code}`);
