@@ -1,10 +1,8 @@
 import type { IncomingMessage } from 'node:http';
 import request from 'supertest';
-import { QueryTypes } from 'sequelize';
-import { Craft, User } from '@/server/models';
 import { demoPeople } from '@/server/seed/demo-scenario';
-import { createToken } from '@/server/services/access-tokens';
 import { actors, fillTemplate, routeCases, type Actor, type Ids } from './route-cases';
+import { routeIds } from './route-ids';
 import { signIn } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -31,38 +29,8 @@ async function startSession(actor: Actor): Promise<Session> {
 
 beforeAll(async () => {
   testApp = await createTestApp();
-  const tern = await Craft.findOne({ where: { name: 'Tern' }, rejectOnEmpty: true });
-  const byEmail = async (subject: string) => {
-    const person = demoPeople.find((p) => p.subject === subject);
-    return (await User.findOne({ where: { email: person?.email ?? '' }, rejectOnEmpty: true })).id;
-  };
-  const tomas = await User.findByPk(await byEmail('demo-tomas'), { rejectOnEmpty: true });
-  const [draft] = await testApp.sequelize.query<{ id: string }>(`SELECT id FROM revisions WHERE craft_id = $1 AND kind = 'draft'`, {
-    bind: [tern.id],
-    type: QueryTypes.SELECT,
-  });
-  const revisionOf = async (kind: 'baseline' | 'study') => {
-    const [found] = await testApp.sequelize.query<{ id: string }>(`SELECT id FROM revisions WHERE craft_id = $1 AND kind = $2`, {
-      bind: [tern.id, kind],
-      type: QueryTypes.SELECT,
-    });
-    return found?.id ?? '';
-  };
-  const [optics] = await testApp.sequelize.query<{ id: string }>(`SELECT id FROM subsystems WHERE craft_id = $1 AND name = 'Optics'`, {
-    bind: [tern.id],
-    type: QueryTypes.SELECT,
-  });
-  ids = {
-    craftId: tern.id,
-    revisionId: draft?.id ?? '',
-    baselineId: await revisionOf('baseline'),
-    studyId: await revisionOf('study'),
-    subsystemId: optics?.id ?? '',
-    ines: await byEmail('demo-ines'),
-    tomas: tomas.id,
-    tokenId: (await createToken(tomas, { name: 'Matrix token', scope: 'read' })).token.id,
-  };
-  corvidSecrets = [tern.id, 'Tern', 'Corvid', ...demoPeople.filter((p) => p.organisation === 'corvid').map((p) => p.email)];
+  ids = await routeIds(testApp);
+  corvidSecrets = [ids.craftId, 'Tern', 'Corvid', ...demoPeople.filter((p) => p.organisation === 'corvid').map((p) => p.email)];
 
   for (const actor of actors) sessions.set(actor, await startSession(actor));
 });
