@@ -83,31 +83,30 @@ describe('an API process killed in the middle of writes', () => {
   it('leaves every write whole: the row, its version and its history agree, and nothing acknowledged is lost', async () => {
     const api = await startApiProcess(databaseUrl);
     const token = await grantToken(databaseUrl, 'amara.osei@corvid-sailworks.example');
-    const [tern] = await queryDatabase<{ id: string; draft: string }>(
+    const [tern = { id: '', draft: '' }] = await queryDatabase<{ id: string; draft: string }>(
       databaseUrl,
       `SELECT c.id, r.id AS draft FROM crafts c JOIN revisions r ON r.craft_id = c.id AND r.kind = 'draft' WHERE c.name = 'Tern'`,
     );
-    const craftPath = `/api/crafts/${tern!.id}/revisions/${tern!.draft}`;
-    const before = new Map<string, RowState>();
-    for (const key of streamedKeys) before.set(key, await rowState(key));
+    const craftPath = `/api/crafts/${tern.id}/revisions/${tern.draft}`;
+    const before = await Promise.all(streamedKeys.map(rowState));
     const since = new Date(Date.now() - 1000);
 
-    const streams = streamedKeys.map((key) => streamWrites(api, token, craftPath, key, before.get(key)!.version));
+    const streams = streamedKeys.map((key, index) => streamWrites(api, token, craftPath, key, before[index]?.version ?? 1));
     // Let every stream get going, then kill the process without warning while writes are in flight.
     await new Promise((resolve) => setTimeout(resolve, 1500));
     api.child.kill('SIGKILL');
     const acknowledged = await Promise.all(streams);
 
     for (const [index, key] of streamedKeys.entries()) {
-      const after = await rowState(key);
+      const [after, initial, sent] = [await rowState(key), before[index], acknowledged[index]];
+      if (!initial || !sent) throw new Error(`no stream for ${key}`);
       const history = await recordedValues(key, since);
-      const written = after.version - before.get(key)!.version;
+      const written = after.version - initial.version;
       // Each committed write bumped the version once and recorded exactly one history entry, in order.
       expect(history).toEqual(Array.from({ length: written }, (_, i) => i + 1));
       // The row holds the last committed value (or its old one when nothing committed).
-      expect(after.value).toBe(written === 0 ? before.get(key)!.value : written);
+      expect(after.value).toBe(written === 0 ? initial.value : written);
       // What the server acknowledged was committed; at most the one write in flight committed unacknowledged.
-      const sent = acknowledged[index]!;
       expect(written).toBeGreaterThanOrEqual(sent.length);
       expect(written).toBeLessThanOrEqual(sent.length + 1);
     }
