@@ -24,12 +24,20 @@ const envSchema = z
     HOST: z.string().default('127.0.0.1'),
     PORT: port.default(8080),
     PUBLIC_URL: z.url().optional(),
-    TRUST_PROXY: z.string().default('loopback'),
+    TRUST_PROXY: z
+      .string()
+      .default('false')
+      .refine(
+        (value) => value !== 'true',
+        'name the proxies (addresses, subnets, loopback) or a hop count; true would trust any X-Forwarded-For',
+      ),
     DATABASE_URL: z.string().default('postgres://trimsheet@127.0.0.1:5433/trimsheet'),
     DATABASE_POOL_MAX: z.coerce.number().int().min(1).default(10),
     SESSION_SECRET: z.string().min(16).default(DEV_SECRET),
     SESSION_COOKIE_NAME: z.string().default('trimsheet.sid'),
     SESSION_MAX_AGE_HOURS: z.coerce.number().positive().default(12),
+    SESSION_ABSOLUTE_DAYS: z.coerce.number().positive().default(7),
+    SIGN_IN_SESSION_MINUTES: z.coerce.number().positive().default(10),
     WEB_DIST: z.string().default(path.resolve(__dirname, '..', 'dist')),
     OIDC_ISSUER: z.url().default(envDefaults.OIDC_ISSUER),
     OIDC_CLIENT_ID: z.string().default('trimsheet-sso'),
@@ -48,8 +56,22 @@ const envSchema = z
     SMTP_PASS: z.string().optional(),
     MAIL_FROM: z.string().default('Trimsheet <trimsheet@corvid-sailworks.example>'),
     SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+    WRITE_RATE_LIMIT: z.coerce.number().int().min(1).default(600),
+    SERVER_HEADERS_TIMEOUT_SECONDS: z.coerce.number().positive().default(20),
+    SERVER_REQUEST_TIMEOUT_SECONDS: z.coerce.number().positive().default(60),
+    SERVER_MAX_CONNECTIONS: z.coerce.number().int().min(1).default(2000),
   })
   .superRefine((env, ctx) => {
+    if (env.SERVER_HEADERS_TIMEOUT_SECONDS > env.SERVER_REQUEST_TIMEOUT_SECONDS)
+      ctx.addIssue({ code: 'custom', path: ['SERVER_HEADERS_TIMEOUT_SECONDS'], message: 'must not exceed SERVER_REQUEST_TIMEOUT_SECONDS' });
+    // The server speaks plain HTTP: an https address means a proxy in front, which must be trusted to say so
+    // (X-Forwarded-Proto), or Secure cookies are never set and nobody can sign in.
+    if (env.PUBLIC_URL?.startsWith('https://') && env.TRUST_PROXY === 'false')
+      ctx.addIssue({
+        code: 'custom',
+        path: ['TRUST_PROXY'],
+        message: 'name the TLS-terminating proxy (an address, subnet or loopback) when PUBLIC_URL is https',
+      });
     if (env.NODE_ENV !== 'production') return;
     if (env.SESSION_SECRET === DEV_SECRET)
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'set a real SESSION_SECRET in production' });
@@ -72,17 +94,28 @@ export type Config = ReturnType<typeof toConfig>;
 
 function toConfig(env: z.infer<typeof envSchema>) {
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`;
+  const secureCookies = publicUrl.startsWith('https://');
   const isLoopbackHttp = (url: string) => /^http:\/\/(127\.0\.0\.1|localhost|\[::1\])(:|\/|$)/.test(url);
   return {
     nodeEnv: env.NODE_ENV,
     host: env.HOST,
     port: env.PORT,
     publicUrl,
-    secureCookies: publicUrl.startsWith('https://'),
-    trustProxy: env.TRUST_PROXY,
+    secureCookies,
+    trustProxy: trustedProxies(env.TRUST_PROXY),
     databaseUrl: env.DATABASE_URL,
     databasePoolMax: env.DATABASE_POOL_MAX,
-    session: { secret: env.SESSION_SECRET, cookieName: env.SESSION_COOKIE_NAME, maxAgeMs: env.SESSION_MAX_AGE_HOURS * 3600_000 },
+    session: {
+      secret: env.SESSION_SECRET,
+      // Browsers accept a __Host- cookie only when it is Secure, host-only and for path /: the prefix goes with HTTPS.
+      cookieName: `${secureCookies ? '__Host-' : ''}${env.SESSION_COOKIE_NAME}`,
+      /** A signed-in session ends after this long unused… */
+      idleMs: env.SESSION_MAX_AGE_HOURS * 3600_000,
+      /** …and this long after sign-in, however much it is used. */
+      absoluteMs: env.SESSION_ABSOLUTE_DAYS * 86_400_000,
+      /** A session holding only a sign-in in progress (the provider's state) ends this long after it starts. */
+      signInMs: env.SIGN_IN_SESSION_MINUTES * 60_000,
+    },
     webDist: env.WEB_DIST,
     sso: {
       issuer: env.OIDC_ISSUER,
@@ -107,7 +140,24 @@ function toConfig(env: z.infer<typeof envSchema>) {
       from: env.MAIL_FROM,
     },
     signInRateLimit: env.SIGN_IN_RATE_LIMIT,
+    /** Changes (any request but GET/HEAD/OPTIONS) per signed-in person per minute. */
+    writeRateLimit: env.WRITE_RATE_LIMIT,
+    server: {
+      headersTimeoutMs: env.SERVER_HEADERS_TIMEOUT_SECONDS * 1000,
+      requestTimeoutMs: env.SERVER_REQUEST_TIMEOUT_SECONDS * 1000,
+      maxConnections: env.SERVER_MAX_CONNECTIONS,
+    },
   };
+}
+
+/**
+ * Express's `trust proxy` from TRUST_PROXY: `false` (no proxy: the socket's peer is the client), a hop count, or
+ * a comma-separated list of proxy addresses, subnets and names (loopback, linklocal, uniquelocal).
+ */
+function trustedProxies(value: string): boolean | number | string[] {
+  if (value === 'false') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  return value.split(',').map((part) => part.trim());
 }
 
 /** Parses an environment (process.env by default) into the typed configuration, or throws naming each bad variable. */
@@ -129,12 +179,12 @@ const stackEnvSchema = z.object({
   TRIMSHEET_PG_PORT: port.default(5433),
   TRIMSHEET_OIDC_PORT: port.default(8090),
   TRIMSHEET_SMTP_PORT: port.default(2525),
-  TRIMSHEET_INBOX_PORT: port.default(8025),
+  TRIMSHEET_INBOX_PORT: port.default(8095),
   TRIMSHEET_TEST_PORT: port.default(8181),
   TRIMSHEET_TEST_PG_PORT: port.default(5434),
   TRIMSHEET_TEST_OIDC_PORT: port.default(8190),
   TRIMSHEET_TEST_SMTP_PORT: port.default(2625),
-  TRIMSHEET_TEST_INBOX_PORT: port.default(8125),
+  TRIMSHEET_TEST_INBOX_PORT: port.default(8195),
   TRIMSHEET_DATA_DIR: z.string().default(path.resolve(__dirname, '..', '.data')),
   TRIMSHEET_SKIP_BUILD: z.enum(['0', '1']).default('0'),
 });

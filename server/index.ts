@@ -1,7 +1,9 @@
-import http from 'node:http';
+import { sweepSessions } from './auth/session';
 import { createDatabase } from './db';
 import { loadConfig } from './env';
 import { createApp } from './app';
+import { createHttpServer } from './http-server';
+import { sweepRateLimits } from './middleware/rate-limit';
 import { createMailer } from './services/mailer';
 import { startNotificationWorker } from './services/notifications';
 import { createSheetEvents } from './services/sheet-events';
@@ -15,13 +17,15 @@ async function main() {
   const events = createSheetEvents(config.databaseUrl);
   const app = createApp({ config, sequelize, mailer, events });
   const notificationWorker = startNotificationWorker(sequelize, mailer);
+  // Every process sweeps expired sessions and rate-limit counters once a minute: two idempotent deletes on indexes.
+  const sweeper = setInterval(() => {
+    Promise.all([sweepSessions(sequelize), sweepRateLimits(sequelize)]).catch((error: unknown) => {
+      console.warn('[trimsheet] sweeping expired sessions and counters:', error instanceof Error ? error.message : error);
+    });
+  }, 60_000);
   let closing = false;
-  // Once shutting down, a request on a kept-alive connection (an event stream reconnecting) gets 503 and a closed
-  // connection instead of reaching a database pool that is closing.
-  const server = http.createServer((req, res) => {
-    if (!closing) return void app(req, res);
-    res.writeHead(503, { Connection: 'close', 'Retry-After': '5' }).end();
-  });
+  // Once shutting down, a request on a kept-alive connection (an event stream reconnecting) gets 503.
+  const server = createHttpServer(config, app, () => closing);
   server.listen(config.port, config.host, () => {
     console.log(`[trimsheet] serving ${config.publicUrl}`);
   });
@@ -34,6 +38,7 @@ async function main() {
   const shutdown = () => {
     if (closing) return;
     closing = true;
+    clearInterval(sweeper);
     // Open event streams would hold server.close() until they end: end them first.
     const eventsClosed = events.close();
     server.close(() => {

@@ -8,10 +8,11 @@ import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { space } from '@/components/ui/theme';
 import { AccessTokens } from './access-tokens';
+import { LinkedSignIns, type LinkedSignInsProps } from './linked-sign-ins';
 import { MailPreferencesCard, NotificationList } from './notifications';
 
-/** Who is signed in, in which organisation, their notifications and mail settings, personal access tokens, and the two ways to sign out. */
-export function AccountScreen() {
+/** Who is signed in, in which organisation, the ways they sign in, their notifications and mail settings, personal access tokens, and the two ways to sign out. */
+export function AccountScreen({ linkResult, linkProvider }: LinkedSignInsProps = {}) {
   const user = useSessionUser();
   const signOut = useSignOut();
   const scope = signOut.isPending ? signOut.variables : null;
@@ -29,6 +30,7 @@ export function AccountScreen() {
           </View>
         </Card>
       ) : null}
+      <LinkedSignIns linkResult={linkResult} linkProvider={linkProvider} />
       <NotificationList />
       <MailPreferencesCard />
       <AccessTokens />

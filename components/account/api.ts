@@ -1,5 +1,6 @@
 import { apiRequest } from '@/components/api/client';
 import { mailPreferencesSchema, notificationListSchema, type MailPreferences } from '@/shared/schemas/notifications';
+import { linkedIdentityListSchema, linkIdentityStartSchema, type SignInProvider } from '@/shared/schemas/session';
 import { accessTokenListSchema, createdTokenSchema, type AccessToken, type CreateTokenBody } from '@/shared/schemas/tokens';
 import type { z } from 'zod';
 
@@ -40,4 +41,15 @@ export function getMailPreferences(): Promise<MailPreferences> {
 /** PUT /api/account/mail-preferences: turns kinds of notification mail on or off. */
 export function setMailPreferences(preferences: MailPreferences): Promise<MailPreferences> {
   return apiRequest('PUT', '/api/account/mail-preferences', { body: preferences, schema: mailPreferencesSchema });
+}
+
+/** GET /api/account/identities: the ways the caller signs in (linked providers). */
+export async function listIdentities(): Promise<z.infer<typeof linkedIdentityListSchema>['identities']> {
+  const { identities } = await apiRequest('GET', '/api/account/identities', { schema: linkedIdentityListSchema });
+  return identities;
+}
+
+/** POST /api/account/identities: asks to link the provider's sign-in; the answer says where the browser goes next. */
+export function requestIdentityLink(provider: SignInProvider): Promise<z.infer<typeof linkIdentityStartSchema>> {
+  return apiRequest('POST', '/api/account/identities', { body: { provider }, schema: linkIdentityStartSchema });
 }

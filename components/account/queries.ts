@@ -4,6 +4,7 @@ import type { CreateTokenBody } from '@/shared/schemas/tokens';
 import {
   createToken,
   getMailPreferences,
+  listIdentities,
   listNotifications,
   listTokens,
   markNotificationsRead,
@@ -76,3 +77,12 @@ export function useSetMailPreferences() {
     onSettled: () => queryClient.invalidateQueries({ queryKey: notificationKeys.mail() }),
   });
 }
+
+/** Query keys for the caller's linked sign-ins. */
+export const identityKeys = {
+  all: ['account-identities'] as const,
+  list: () => [...identityKeys.all, 'list'] as const,
+};
+
+/** The caller's linked sign-ins. */
+export const identityListOptions = () => queryOptions({ queryKey: identityKeys.list(), queryFn: listIdentities });

@@ -5,6 +5,7 @@ import { SailMark } from '@/components/ui/sail-mark';
 import { AppText } from '@/components/ui/text';
 import { colors, space } from '@/components/ui/theme';
 import { signInErrorCodeSchema, type SessionResponse, type SignInErrorCode } from '@/shared/schemas/session';
+import { InvitationChoiceList } from './invitation-choice';
 import { assignPageLocation } from './page-navigation';
 import { useSession } from './queries';
 
@@ -17,6 +18,11 @@ const buttonLabels: Record<ProviderId, string> = {
 
 const errorMessages: Record<SignInErrorCode, string> = {
   no_account: 'There is no Trimsheet account for this sign-in. Ask an organisation admin to invite you.',
+  identity_not_linked:
+    'This e-mail address belongs to a Trimsheet account that signs in another way, so this sign-in was refused. Sign in as you usually do, then link this sign-in on your Account page, or ask your organisation admin for an invitation for it.',
+  choose_invitation: 'More than one organisation has invited you. Choose the one to join.',
+  invitation_unavailable: 'That invitation was withdrawn or has already been accepted. Ask the organisation admin for a new one.',
+  other_provider: 'Your invitation is for the other way of signing in. Use that button instead.',
   email_not_verified: 'Your provider has not verified this e-mail address. Verify it there, then sign in again.',
   missing_email: 'Your provider did not share an e-mail address, and Trimsheet needs one to know who you are.',
   state_mismatch: 'The sign-in expired or was started in another tab. Please try again.',
@@ -44,8 +50,12 @@ export function SignInScreen({ error }: SignInScreenProps) {
   return (
     <View style={styles.page}>
       <Card style={styles.card}>
-        <SailMark size={56} />
-        <AppText variant="display">Trimsheet</AppText>
+        <View style={styles.band} testID="sign-in-band">
+          <SailMark size={56} backdrop="ink" />
+          <AppText variant="display" style={styles.name}>
+            Trimsheet
+          </AppText>
+        </View>
         <AppText variant="muted">
           Sizing sheets and mass budgets for solar-sail spacecraft, kept in revisions your whole team can trust.
         </AppText>
@@ -54,6 +64,7 @@ export function SignInScreen({ error }: SignInScreenProps) {
             <AppText variant="error">{describeSignInError(error)}</AppText>
           </View>
         ) : null}
+        <InvitationChoiceList />
         <View style={styles.buttons}>
           {providers.map((provider) => (
             <Button
@@ -72,7 +83,19 @@ export function SignInScreen({ error }: SignInScreenProps) {
 
 const styles = StyleSheet.create({
   page: { flex: 1, backgroundColor: colors.ground, alignItems: 'center', justifyContent: 'center', padding: space.lg },
-  card: { width: '100%', maxWidth: 420, padding: space.xl, gap: space.lg },
+  card: { width: '100%', maxWidth: 420, padding: space.xl, gap: space.lg, overflow: 'hidden' },
+  // The ink-blue band runs edge to edge across the top of the card, behind the mark and the name.
+  band: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    marginTop: -space.xl,
+    marginHorizontal: -space.xl,
+    paddingHorizontal: space.xl,
+    paddingVertical: space.lg,
+    backgroundColor: colors.ink,
+  },
+  name: { color: colors.ground },
   error: { backgroundColor: colors.faultWash, borderRadius: 10, padding: space.md },
   buttons: { gap: space.md },
 });

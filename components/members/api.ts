@@ -38,6 +38,11 @@ export function invitePerson(body: InviteBody): Promise<Invitation> {
   return apiRequest('POST', '/api/organisation/invitations', { body, schema: invitationSchema });
 }
 
+/** DELETE /api/organisation/invitations/:invitationId (org admins): withdraws a pending invitation. */
+export function withdrawInvitation(invitationId: string): Promise<void> {
+  return apiRequest('DELETE', `/api/organisation/invitations/${encodeURIComponent(invitationId)}`);
+}
+
 /** PUT /api/organisation/people/:userId/admin (org admins); the last admin cannot be removed (409). */
 export function setOrgAdmin(userId: string, isOrgAdmin: boolean): Promise<Person> {
   return apiRequest('PUT', `/api/organisation/people/${encodeURIComponent(userId)}/admin`, { body: { isOrgAdmin }, schema: personSchema });

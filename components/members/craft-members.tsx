@@ -55,7 +55,7 @@ function MemberRow({ craftId, member, canManage }: { craftId: string; member: Me
       <View style={styles.rowTop}>
         <View style={styles.who}>
           <AppText variant="heading">{member.name}</AppText>
-          <AppText variant="mono">{member.email}</AppText>
+          {member.email === undefined ? null : <AppText variant="mono">{member.email}</AppText>}
         </View>
         <Badge label={craftRoleLabels[member.role]} />
       </View>

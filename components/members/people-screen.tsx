@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { StyleSheet, View } from 'react-native';
 import { useSessionUser } from '@/components/auth/queries';
 import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { DividedList } from '@/components/ui/divided-list';
 import { Screen } from '@/components/ui/screen';
@@ -12,7 +13,7 @@ import { space } from '@/components/ui/theme';
 import { mayInOrganisation } from '@/shared/access/permissions';
 import type { Invitation, Person } from '@/shared/schemas/organisation';
 import { InviteForm } from './invite-form';
-import { organisationOptions, useSetOrgAdmin } from './queries';
+import { organisationOptions, useSetOrgAdmin, useWithdrawInvitation } from './queries';
 
 /** Organisation admins: the organisation's people, who is an admin, and invitations. */
 export function PeopleScreen() {
@@ -83,7 +84,7 @@ function PersonRow({ person, canSetAdmin }: { person: Person; canSetAdmin: boole
         <AppText variant="label">Admin</AppText>
         <Toggle
           label={`Organisation admin: ${person.name}`}
-          value={person.isOrgAdmin}
+          value={person.isOrgAdmin ?? false}
           disabled={!canSetAdmin || setOrgAdmin.isPending}
           onChange={(isOrgAdmin) => setOrgAdmin.mutate({ userId: person.id, isOrgAdmin })}
           testID={`org-person-${person.id}-admin`}
@@ -93,17 +94,41 @@ function PersonRow({ person, canSetAdmin }: { person: Person; canSetAdmin: boole
   );
 }
 
+const providerNames: Readonly<Record<NonNullable<Invitation['provider']>, string>> = { google: 'Google', sso: 'Company SSO' };
+
+/** Where an invitation stands, in a word for its badge. */
+function invitationState(invitation: Invitation): 'Accepted' | 'Withdrawn' | 'Waiting' {
+  if (invitation.acceptedAt) return 'Accepted';
+  return invitation.withdrawnAt ? 'Withdrawn' : 'Waiting';
+}
+
 function InvitationRow({ invitation }: { invitation: Invitation }) {
+  const withdraw = useWithdrawInvitation();
+  const state = invitationState(invitation);
   return (
-    <View style={styles.row}>
+    <View style={styles.row} testID={`invitation-${invitation.id}`}>
       <View style={styles.who}>
         <AppText variant="heading">{invitation.name}</AppText>
         <AppText variant="mono">{invitation.email}</AppText>
         <AppText variant="muted">
           Invited by {invitation.invitedBy} on <AppText variant="mono">{invitation.createdAt.slice(0, 10)}</AppText>
+          {invitation.provider ? ` · signs in with ${providerNames[invitation.provider]}` : ''}
         </AppText>
+        {withdraw.isError ? <AppText variant="error">{withdraw.error.message}</AppText> : null}
       </View>
-      <Badge label={invitation.acceptedAt ? 'Accepted' : 'Waiting'} strong={invitation.acceptedAt === null} />
+      <View style={styles.toggle}>
+        <Badge label={state} strong={state === 'Waiting'} />
+        {state === 'Waiting' ? (
+          <Button
+            label="Withdraw"
+            tone="secondary"
+            aria-label={`Withdraw the invitation to ${invitation.email}`}
+            busy={withdraw.isPending}
+            onPress={() => withdraw.mutate(invitation.id)}
+            testID={`withdraw-invitation-${invitation.id}`}
+          />
+        ) : null}
+      </View>
     </View>
   );
 }

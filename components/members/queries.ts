@@ -3,7 +3,7 @@ import { craftKeys } from '@/components/crafts/queries';
 import { sessionKeys } from '@/components/auth/queries';
 import type { SetMemberBody } from '@/shared/schemas/members';
 import type { InviteBody } from '@/shared/schemas/organisation';
-import { getOrganisation, invitePerson, listMembers, removeMember, setMember, setOrgAdmin } from './api';
+import { getOrganisation, invitePerson, listMembers, removeMember, setMember, setOrgAdmin, withdrawInvitation } from './api';
 
 /** Query keys for craft memberships, general to specific. */
 export const memberKeys = {
@@ -55,6 +55,15 @@ export function useInvitePerson() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: InviteBody) => invitePerson(body),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: organisationKeys.all }),
+  });
+}
+
+/** Withdraws a pending invitation; it can no longer be accepted. */
+export function useWithdrawInvitation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (invitationId: string) => withdrawInvitation(invitationId),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: organisationKeys.all }),
   });
 }

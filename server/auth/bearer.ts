@@ -1,8 +1,7 @@
 import type { RequestHandler } from 'express';
 import { HttpError } from '../http-error';
+import { isReadMethod } from '../middleware/require-user';
 import { findTokenUser } from '../services/access-tokens';
-
-const readMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
  * Where a script's token may never reach, whatever its scope: sign-in and sessions, the tokens themselves,
@@ -10,7 +9,7 @@ const readMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
  */
 function isOffLimits(method: string, path: string): boolean {
   if (/^\/(auth|account)(\/|$)/.test(path)) return true;
-  if (readMethods.has(method)) return false;
+  if (isReadMethod(method)) return false;
   return /^\/organisation(\/|$)/.test(path) || /^\/crafts\/[^/]+\/members(\/|$)/.test(path);
 }
 
@@ -28,7 +27,7 @@ export const bearerAuth: RequestHandler = async (req, _res, next) => {
   if (isOffLimits(req.method, req.path)) {
     throw new HttpError(403, 'token_not_allowed', 'Access tokens cannot sign in, manage tokens or change people; use the web app');
   }
-  if (found.token.scope === 'read' && !readMethods.has(req.method)) {
+  if (found.token.scope === 'read' && !isReadMethod(req.method)) {
     throw new HttpError(403, 'token_scope', 'This access token may only read; create a read-write token to change data');
   }
   req.user = found.user;

@@ -9,27 +9,23 @@ export interface Csrf {
 }
 
 /**
- * Double-submit CSRF tokens bound to the session identifier: every request but GET/HEAD/OPTIONS must
- * carry the token in `x-csrf-token`. The rejection is csrf-csrf's 403 "invalid csrf token" error, which
- * the error middleware turns into `invalid_csrf_token`.
+ * Double-submit CSRF tokens: every request but GET/HEAD/OPTIONS must carry the token in `x-csrf-token`. A signed-in
+ * person's token is bound to their session; an anonymous visitor's to no session, since none is stored for them
+ * (it stops being valid at sign-in, which gives a new session: the web app asks for a new token then). The
+ * rejection is csrf-csrf's 403 "invalid csrf token" error, which the error middleware turns into `invalid_csrf_token`.
  */
 export function createCsrf(config: Config): Csrf {
-  // Browsers accept a __Host- cookie only when it is Secure, so the prefix goes with HTTPS.
-  const cookieName = `${config.secureCookies ? '__Host-' : ''}${config.session.cookieName}.csrf`;
   const { doubleCsrfProtection, generateCsrfToken } = doubleCsrf({
     getSecret: () => config.session.secret,
-    getSessionIdentifier: (req) => req.session.id,
-    cookieName,
+    getSessionIdentifier: (req) => (req.user ? req.session.id : 'anonymous'),
+    // The session cookie's name carries the __Host- prefix on HTTPS, and so does this one.
+    cookieName: `${config.session.cookieName}.csrf`,
     cookieOptions: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, path: '/' },
     ignoredMethods: ['GET', 'HEAD', 'OPTIONS'],
     getCsrfTokenFromRequest: (req) => req.get('x-csrf-token'),
   });
   return {
     protection: doubleCsrfProtection,
-    issueToken(req, res) {
-      // An unsaved session gets a new identifier on the next request, which would void the token.
-      req.session.csrfIssued = true;
-      return generateCsrfToken(req, res);
-    },
+    issueToken: (req, res) => generateCsrfToken(req, res),
   };
 }

@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from '../env';
 import { createCsrf } from './csrf';
 import { authRouter } from './router';
-import { createPassport, sessionMiddleware } from './session';
+import { createPassport, PostgresSessionStore, sessionMiddleware } from './session';
 import { googleStrategy, ssoStrategyLoader } from './strategies';
 
 export interface Auth {
@@ -19,11 +19,12 @@ export interface Auth {
 
 /** Builds sign-in for one app: sessions in PostgreSQL, Google and company SSO through passport, CSRF tokens. */
 export function createAuth({ config, sequelize }: { config: Config; sequelize: Sequelize }): Auth {
+  const store = new PostgresSessionStore(sequelize, config.session);
   const passport = createPassport();
   passport.use(googleStrategy(config));
   const csrf = createCsrf(config);
   return {
-    browser: Router().use(cookieParser(), sessionMiddleware(config, sequelize), passport.initialize(), passport.session(), csrf.protection),
+    browser: Router().use(cookieParser(), sessionMiddleware(config, store), passport.initialize(), passport.session(), csrf.protection),
     router: authRouter({ config, sequelize, passport, csrf, loadSso: ssoStrategyLoader(passport, config) }),
   };
 }

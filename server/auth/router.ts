@@ -17,8 +17,8 @@ export interface AuthRouterDeps {
 /** The /api/auth routes. */
 export function authRouter({ config, sequelize, passport, csrf, loadSso }: AuthRouterDeps): Router {
   const router = Router();
-  const limitStarts = signInRateLimit(config);
-  const limitCallbacks = signInRateLimit(config);
+  const limitStarts = signInRateLimit(config, sequelize, 'sign_in_start');
+  const limitCallbacks = signInRateLimit(config, sequelize, 'sign_in_callback');
   const ssoReady = requireStrategy(loadSso);
 
   // GET /api/auth/session: anyone; SessionResponse.
@@ -32,6 +32,6 @@ export function authRouter({ config, sequelize, passport, csrf, loadSso }: AuthR
   // POST /api/auth/sign-out: anyone (no-op when signed out); 204; 403 invalid_csrf_token.
   router.post('/sign-out', signOut(config));
   // POST /api/auth/sign-out-everywhere: signed in; 204; 401 unauthenticated, 403 invalid_csrf_token.
-  router.post('/sign-out-everywhere', requireUser, signOutEverywhere(config, sequelize));
+  router.post('/sign-out-everywhere', requireUser, signOutEverywhere(config));
   return router;
 }

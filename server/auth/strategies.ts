@@ -4,10 +4,11 @@ import { Strategy as OidcStrategy, type AuthenticateOptions } from 'openid-clien
 import { Strategy as GoogleStrategy } from 'passport-google-oauth20';
 import { z } from 'zod';
 import type { Config } from '../env';
-import { findUserForSignIn, type SignInProvider } from '../services/sign-in';
+import { findUserForSignIn, linkIdentityToPerson, type SignInClaims } from '../services/sign-in';
 import { describeIssues } from '@/shared/schemas/common';
-import type { SignInErrorCode } from '@/shared/schemas/session';
+import type { IdentityLinkResult, SignInErrorCode, SignInProvider } from '@/shared/schemas/session';
 import type { Passport } from './session';
+import { chosenInvitationOf, identityLinkAt, offerInvitationChoice } from './sign-in-intents';
 
 /** The `info` a strategy passes when it refuses a sign-in it understood. */
 export interface SignInRefusal {
@@ -15,34 +16,59 @@ export interface SignInRefusal {
   message: string;
 }
 
-type Done = (error: unknown, user?: Express.User | false, info?: SignInRefusal) => void;
+/** The `info` a strategy passes when the callback linked (or did not link) a sign-in to the signed-in person. */
+export interface IdentityLinkInfo {
+  link: IdentityLinkResult;
+}
+
+type Done = (error: unknown, user?: Express.User | false, info?: SignInRefusal | IdentityLinkInfo) => void;
 
 const SCOPE = 'openid email profile';
 
-/** The standard OpenID Connect claims a sign-in needs (OpenID Connect Core 1.0 §5.1). */
+/** The standard OpenID Connect claims a sign-in needs (OpenID Connect Core 1.0 §5.1); an address fits RFC 5321's 254. */
 const providerClaimsSchema = z.object({
   sub: z.string().min(1),
-  email: z.email(),
+  email: z.email().max(254),
   email_verified: z.boolean().default(false),
   name: z.string().default(''),
 });
 
-async function signInFromClaims(provider: SignInProvider, raw: unknown): Promise<{ user: Express.User } | { refusal: SignInRefusal }> {
+const refusalMessages: Partial<Record<SignInErrorCode, string>> = {
+  email_not_verified: 'The provider has not verified this e-mail address',
+  identity_not_linked:
+    'A person with this e-mail address signs in another way; a new sign-in is linked only by that person or an invitation',
+  choose_invitation: 'Several organisations invited this e-mail address; the invitee chooses one',
+  invitation_unavailable: 'The chosen invitation was withdrawn or already accepted',
+  other_provider: 'The invitation for this e-mail address asks for the other sign-in provider',
+  no_account: 'No Trimsheet person or pending invitation for this e-mail address',
+};
+
+/** What the provider's claims lead to: a person, a refusal, or (for a signed-in person who asked) a link. */
+async function settleClaims(req: Request, provider: SignInProvider, raw: unknown): Promise<Parameters<Done>> {
   const parsed = providerClaimsSchema.safeParse(raw);
   if (!parsed.success) {
     const where = describeIssues(parsed.error.issues);
     const code = parsed.error.issues.some((issue) => issue.path[0] === 'email') ? 'missing_email' : 'provider_error';
-    return { refusal: { code, message: `The ${provider} sign-in gave unusable claims (${where})` } };
+    return [null, false, { code, message: `The ${provider} sign-in gave unusable claims (${where})` }];
   }
   const { sub, email, email_verified: emailVerified, name } = parsed.data;
-  const user = await findUserForSignIn({ provider, subject: sub, email, name, emailVerified });
-  if (user) return { user };
-  if (!emailVerified) return { refusal: { code: 'email_not_verified', message: `The provider has not verified ${email}` } };
-  return { refusal: { code: 'no_account', message: `No Trimsheet person or pending invitation for ${email}` } };
+  const claims: SignInClaims = { provider, subject: sub, email, name, emailVerified };
+  const link = identityLinkAt(req, provider);
+  if (link) {
+    const result = link.valid && req.user ? await linkIdentityToPerson(req.user, claims) : 'link_expired';
+    return [null, false, { link: result }];
+  }
+  const outcome = await findUserForSignIn(claims, chosenInvitationOf(req));
+  if (outcome.kind === 'person') return [null, outcome.user];
+  if (outcome.kind === 'choose') {
+    offerInvitationChoice(req, provider, outcome.email, outcome.invitations);
+    return [null, false, { code: 'choose_invitation', message: refusalMessages.choose_invitation ?? '' }];
+  }
+  return [null, false, { code: outcome.code, message: refusalMessages[outcome.code] ?? outcome.code }];
 }
 
-function settle(provider: SignInProvider, raw: unknown, done: Done) {
-  signInFromClaims(provider, raw).then((outcome) => ('user' in outcome ? done(null, outcome.user) : done(null, false, outcome.refusal)), done);
+function settle(req: Request, provider: SignInProvider, raw: unknown, done: Done) {
+  settleClaims(req, provider, raw).then((outcome) => done(...outcome), done);
 }
 
 const callbackUrl = (config: Config, provider: SignInProvider) => `${config.publicUrl.replace(/\/+$/, '')}/api/auth/${provider}/callback`;
@@ -60,8 +86,9 @@ export function googleStrategy(config: Config): GoogleStrategy {
       scope: SCOPE,
       state: true,
       pkce: true,
+      passReqToCallback: true,
     },
-    (_accessToken, _refreshToken, profile, done) => settle('google', profile._json, done),
+    (req, _accessToken, _refreshToken, profile, done) => settle(req, 'google', profile._json, done),
   );
 }
 
@@ -84,8 +111,15 @@ async function ssoStrategy(config: Config): Promise<SsoStrategy> {
     { execute: config.sso.allowHttp ? [oidc.allowInsecureRequests] : [], timeout: 5 },
   );
   return new SsoStrategy(
-    { config: configuration, name: 'sso', sessionKey: 'sign-in:sso', callbackURL: callbackUrl(config, 'sso'), scope: SCOPE },
-    (tokens, done) => settle('sso', tokens.claims(), done),
+    {
+      config: configuration,
+      name: 'sso',
+      sessionKey: 'sign-in:sso',
+      callbackURL: callbackUrl(config, 'sso'),
+      scope: SCOPE,
+      passReqToCallback: true,
+    },
+    (req, tokens, done) => settle(req, 'sso', tokens.claims(), done),
   );
 }
 

@@ -79,6 +79,11 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
     httpError = new HttpError(500, 'internal', 'Something went wrong on the server; nothing was saved');
   }
   if (res.headersSent) return;
+  // A refusal before the body was read (not signed in, a bad CSRF token): hang up rather than read the rest of it
+  // only to keep the connection, which would let anyone make the server read big bodies for nothing.
+  if (!req.complete) res.setHeader('Connection', 'close');
+  const retryAfter = httpError.details && 'retryAfterSeconds' in httpError.details ? httpError.details.retryAfterSeconds : undefined;
+  if (httpError.status === 429 && typeof retryAfter === 'number') res.setHeader('Retry-After', String(retryAfter));
   res.status(httpError.status).json({
     error: { code: httpError.code, message: httpError.message, ...(httpError.details ? { details: httpError.details } : {}) },
   });

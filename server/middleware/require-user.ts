@@ -3,6 +3,11 @@ import { mayInOrganisation, type OrganisationAction } from '@/shared/access/perm
 import { HttpError } from '../http-error';
 import type { User } from '../models';
 
+const readMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Whether a request of this method only reads (and so needs no CSRF token, body or write limit). */
+export const isReadMethod = (method: string): boolean => readMethods.has(method);
+
 /** 401 unless someone is signed in (by session or access token). */
 export const requireUser: RequestHandler = (req, _res, next) => {
   if (!req.user) throw new HttpError(401, 'unauthenticated', 'Sign in first');

@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { findTemplate, instantiateTemplate } from '@/shared/templates';
-import { Craft, Membership, Organisation, User } from '../models';
+import { Craft, Identity, Membership, Organisation, User } from '../models';
 import { lockBaseline } from '../services/baselines';
 import { updateParameter } from '../services/parameters';
 import { createDraft, draftIdOf, ensureSubsystems } from '../services/sheet-store';
@@ -40,6 +40,15 @@ export async function seedDemo(sequelize: Sequelize): Promise<void> {
           transaction,
         });
         users.set(person.subject, user);
+        // The sign-in fake offers demo people under both providers with one subject; their sign-ins are linked
+        // here, as a person's own link would, since an e-mail address alone never links one.
+        for (const provider of ['google', 'sso'] as const) {
+          await Identity.findOrCreate({
+            where: { provider, subject: person.subject },
+            defaults: { provider, subject: person.subject, userId: user.id },
+            transaction,
+          });
+        }
       }
       if ((await draftIdOf(sequelize, craft.id, transaction)) === null) {
         const chief = people.find((person) => person.craftRole === 'chief_engineer');

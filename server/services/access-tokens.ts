@@ -2,7 +2,8 @@ import crypto from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import type { AccessToken as AccessTokenDto, CreateTokenBody, TokenScope } from '@/shared/schemas/tokens';
 import { notFound } from '../http-error';
-import { AccessToken, Organisation, User } from '../models';
+import { signedInUser, signedInUserColumns, type SignedInUserRecord } from '../auth/signed-in-user';
+import { AccessToken, type User } from '../models';
 import { preparedQuery } from '../models/prepared-query';
 import { recordAudit } from './audit';
 
@@ -103,10 +104,7 @@ async function tokenOwner(hash: string): Promise<TokenOwnerRecord | null> {
   const revocationsBefore = revocations;
   const [found] = await preparedQuery<TokenOwnerRecord>(
     sequelize,
-    `SELECT t.id AS "tokenId", t.scope, t.last_used_at AS "lastUsedAt", t.revoked_at AS "revokedAt",
-            u.id, u.organisation_id AS "organisationId", u.email, u.name, u.is_org_admin AS "isOrgAdmin",
-            u.created_at AS "createdAt", u.updated_at AS "updatedAt", o.name AS "organisationName", o.slug AS "organisationSlug",
-            o.created_at AS "organisationCreatedAt", o.updated_at AS "organisationUpdatedAt"
+    `SELECT t.id AS "tokenId", t.scope, t.last_used_at AS "lastUsedAt", t.revoked_at AS "revokedAt", ${signedInUserColumns}
      FROM access_tokens t JOIN users u ON u.id = t.user_id JOIN organisations o ON o.id = u.organisation_id
      WHERE t.token_hash = $1`,
     [hash],
@@ -130,45 +128,12 @@ async function tokenOwner(hash: string): Promise<TokenOwnerRecord | null> {
 export async function findTokenUser(secret: string): Promise<{ user: User; token: { id: string; scope: TokenScope } } | null> {
   const found = await tokenOwner(hashSecret(secret));
   if (!found) return null;
-  const user = User.build(
-    {
-      id: found.id,
-      organisationId: found.organisationId,
-      email: found.email,
-      name: found.name,
-      isOrgAdmin: found.isOrgAdmin,
-      createdAt: found.createdAt,
-      updatedAt: found.updatedAt,
-    },
-    { isNewRecord: false, raw: true },
-  );
-  user.organisation = Organisation.build(
-    {
-      id: found.organisationId,
-      name: found.organisationName,
-      slug: found.organisationSlug,
-      createdAt: found.organisationCreatedAt,
-      updatedAt: found.organisationUpdatedAt,
-    },
-    { isNewRecord: false, raw: true },
-  );
-  return { user, token: { id: found.tokenId, scope: found.scope } };
+  return { user: signedInUser(found), token: { id: found.tokenId, scope: found.scope } };
 }
 
-interface TokenOwnerRecord {
+interface TokenOwnerRecord extends SignedInUserRecord {
   tokenId: string;
   scope: TokenScope;
   lastUsedAt: Date | null;
   revokedAt: Date | null;
-  id: string;
-  organisationId: string;
-  email: string;
-  name: string;
-  isOrgAdmin: boolean;
-  createdAt: Date;
-  updatedAt: Date;
-  organisationName: string;
-  organisationSlug: string;
-  organisationCreatedAt: Date;
-  organisationUpdatedAt: Date;
 }

@@ -1,4 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
+import { mayOnCraft } from '@/shared/access/permissions';
 import type { Member, SetMemberBody } from '@/shared/schemas/members';
 import { HttpError, notFound } from '../http-error';
 import { Craft, Membership, User } from '../models';
@@ -14,11 +15,11 @@ function subsystemNames(subsystemIds: readonly string[], subsystems: readonly Su
   return subsystems.filter((subsystem) => subsystemIds.includes(subsystem.id)).map((subsystem) => subsystem.name);
 }
 
-function toMemberDto(membership: Membership, user: User, subsystems: readonly SubsystemRecord[]): Member {
+function toMemberDto(membership: Membership, user: User, subsystems: readonly SubsystemRecord[], withContact = true): Member {
   return {
     userId: user.id,
     name: user.name,
-    email: user.email,
+    ...(withContact ? { email: user.email } : {}),
     role: membership.role,
     subsystems: subsystemNames(membership.subsystemIds, subsystems),
   };
@@ -48,13 +49,14 @@ async function recordRoleChange(
   });
 }
 
-/** The craft's members with their roles, by name. */
+/** The craft's members with their roles, by name; their e-mail addresses only for those the permission table lets see contacts. */
 export async function listMembers(sequelize: Sequelize, user: User, craftId: string): Promise<Member[]> {
-  await authorizeCraft(user, craftId, 'viewMembers');
+  const access = await authorizeCraft(user, craftId, 'viewMembers');
+  const withContact = mayOnCraft('viewContacts', access);
   const memberships = await Membership.findAll({ where: { craftId }, include: [{ model: User, as: 'user' }] });
   const subsystems = await selectSubsystems(sequelize, craftId);
   return memberships
-    .flatMap((membership) => (membership.user ? [toMemberDto(membership, membership.user, subsystems)] : []))
+    .flatMap((membership) => (membership.user ? [toMemberDto(membership, membership.user, subsystems, withContact)] : []))
     .sort((a, b) => a.name.localeCompare(b.name));
 }
 

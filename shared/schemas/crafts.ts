@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { idSchema, textLine } from './common';
+import { idSchema, textBlock, textLine } from './common';
 import { craftRoleSchema } from './roles';
 
 export const craftSchema = z.object({
@@ -24,7 +24,7 @@ export type CraftList = z.infer<typeof craftListSchema>;
 export const craftParamsSchema = z.object({ craftId: idSchema });
 
 const craftName = textLine(120);
-const craftDescription = z.string().trim().max(2000, { message: 'must be at most 2000 characters' });
+const craftDescription = textBlock(2000).trim();
 
 /**
  * A new craft starts from a template (`templateId`, the square sail when neither is given) or as a copy

@@ -2,11 +2,14 @@ import { z } from 'zod';
 import { idSchema, textLine } from './common';
 import { craftRoleSchema } from './roles';
 
-/** A person's membership of one craft. Subsystems matter for subsystem owners: the rows they may edit. */
+/**
+ * A person's membership of one craft. Subsystems matter for subsystem owners: the rows they may edit. The
+ * e-mail address is left out for those who see names only (partners).
+ */
 export const memberSchema = z.object({
   userId: idSchema,
   name: z.string(),
-  email: z.string(),
+  email: z.string().optional(),
   role: craftRoleSchema,
   subsystems: z.array(z.string()),
 });

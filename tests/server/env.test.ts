@@ -13,6 +13,7 @@ describe('loadConfig', () => {
     const config = loadConfig({
       NODE_ENV: 'production',
       PUBLIC_URL: 'https://trimsheet.corvid-sailworks.example',
+      TRUST_PROXY: '10.0.0.0/8',
       SESSION_SECRET: 'a-long-random-production-secret',
       OIDC_ISSUER: 'https://sso.corvid-sailworks.example',
       OIDC_CLIENT_SECRET: 'sso-secret',
@@ -22,6 +23,25 @@ describe('loadConfig', () => {
       GOOGLE_USERINFO_URL: 'https://openidconnect.googleapis.com/v1/userinfo',
     });
     expect(config.secureCookies).toBe(true);
+    expect(config.session.cookieName).toBe('__Host-trimsheet.sid');
+    expect(config.trustProxy).toEqual(['10.0.0.0/8']);
     expect(config.sso.allowHttp).toBe(false);
+  });
+
+  it('trusts no proxy unless told, and never every X-Forwarded-For', () => {
+    expect(loadConfig({ NODE_ENV: 'test' }).trustProxy).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'test', TRUST_PROXY: '2' }).trustProxy).toBe(2);
+    expect(loadConfig({ NODE_ENV: 'test', TRUST_PROXY: 'loopback, 10.0.0.1' }).trustProxy).toEqual(['loopback', '10.0.0.1']);
+    expect(() => loadConfig({ NODE_ENV: 'test', TRUST_PROXY: 'true' })).toThrow(/TRUST_PROXY: name the proxies/);
+    expect(() => loadConfig({ NODE_ENV: 'test', PUBLIC_URL: 'https://trimsheet.example' })).toThrow(
+      /TRUST_PROXY: name the TLS-terminating proxy/,
+    );
+  });
+
+  it('names the session cookie without the __Host- prefix over plain HTTP, and keeps header timeouts within request timeouts', () => {
+    expect(loadConfig({ NODE_ENV: 'test' }).session.cookieName).toBe('trimsheet.sid');
+    expect(() => loadConfig({ NODE_ENV: 'test', SERVER_HEADERS_TIMEOUT_SECONDS: '90' })).toThrow(
+      /SERVER_HEADERS_TIMEOUT_SECONDS: must not exceed SERVER_REQUEST_TIMEOUT_SECONDS/,
+    );
   });
 });

@@ -10,7 +10,7 @@ function renderShell(isOrgAdmin: boolean) {
     {
       _layout: SignedInNavigation,
       'crafts/index': () => <AppText>crafts page</AppText>,
-      'what-if': () => <AppText>what-if page</AppText>,
+      sandbox: () => <AppText>sandbox page</AppText>,
       people: () => <AppText>people page</AppText>,
       account: () => <AppText>account page</AppText>,
     },

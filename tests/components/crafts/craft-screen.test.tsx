@@ -64,6 +64,7 @@ describe('CraftScreen', () => {
         status: 200,
         body: {
           organisation: demoUser.organisation,
+          directory: 'organisation',
           people: [{ id: demoUser.id, name: demoUser.name, email: demoUser.email, isOrgAdmin: true }, lena],
           invitations: [],
         },

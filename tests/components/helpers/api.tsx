@@ -28,6 +28,7 @@ export function demoSession(user: SessionUser | null): SessionResponse {
       { id: 'google', label: 'Google', startUrl: '/api/auth/google' },
       { id: 'sso', label: 'Company SSO', startUrl: '/api/auth/sso' },
     ],
+    invitationChoice: null,
   };
 }
 

@@ -1,7 +1,20 @@
-import { fireEvent, screen, waitFor } from '@testing-library/dom';
+import { fireEvent, screen, waitFor, within } from '@testing-library/dom';
 import { InviteForm } from '@/components/members/invite-form';
 import { demoSession, demoUser, mockFetch, setupQueryClient } from '../helpers/api';
 import { renderDom } from '../helpers/render';
+
+/** The server's answer to an invitation: the invitation as sent, waiting. */
+const invitationSent = (body: unknown) => ({
+  status: 201,
+  body: {
+    id: '5e4d3c2b-1a09-4f8e-9d7c-6b5a4f3e2d1c',
+    ...(body as object),
+    invitedBy: demoUser.name,
+    createdAt: '2026-12-01T10:00:00.000Z',
+    acceptedAt: null,
+    withdrawnAt: null,
+  },
+});
 
 function renderForm() {
   const { wrapper: Wrapper } = setupQueryClient(demoUser);
@@ -53,23 +66,28 @@ describe('InviteForm', () => {
   it('sends the trimmed, lower-cased invitation and says where it went', async () => {
     const fetchMock = mockFetch({
       'GET /api/auth/session': { status: 200, body: demoSession(demoUser) },
-      'POST /api/organisation/invitations': (body) => ({
-        status: 201,
-        body: {
-          id: '5e4d3c2b-1a09-4f8e-9d7c-6b5a4f3e2d1c',
-          ...(body as object),
-          invitedBy: demoUser.name,
-          createdAt: '2026-12-01T10:00:00.000Z',
-          acceptedAt: null,
-        },
-      }),
+      'POST /api/organisation/invitations': invitationSent,
     });
     renderForm();
     fillIn('  Kim Sato ', ' Kim@Helios.example ');
 
     await screen.findByText('Invitation sent to kim@helios.example.');
     const post = fetchMock.mock.calls.find(([, init]) => init?.method === 'POST');
-    expect(JSON.parse(String(post?.[1]?.body))).toEqual({ name: 'Kim Sato', email: 'kim@helios.example' });
+    expect(JSON.parse(String(post?.[1]?.body))).toEqual({ name: 'Kim Sato', email: 'kim@helios.example', provider: null });
     await waitFor(() => expect((screen.getByTestId('invite-name') as HTMLInputElement).value).toBe(''));
+  });
+
+  it('sends the provider chosen for the invitation', async () => {
+    const fetchMock = mockFetch({
+      'GET /api/auth/session': { status: 200, body: demoSession(demoUser) },
+      'POST /api/organisation/invitations': invitationSent,
+    });
+    renderForm();
+    fireEvent.click(within(screen.getByTestId('invite-provider')).getByRole('radio', { name: 'Google' }));
+    fillIn('Kim Sato', 'kim@helios.example');
+
+    await screen.findByText('Invitation sent to kim@helios.example.');
+    const post = fetchMock.mock.calls.find(([, init]) => init?.method === 'POST');
+    expect(JSON.parse(String(post?.[1]?.body))).toEqual({ name: 'Kim Sato', email: 'kim@helios.example', provider: 'google' });
   });
 });

@@ -1,6 +1,6 @@
 import { Identity, Invitation, Organisation, User } from '@/server/models';
 import { demoOrganisations, demoPeople } from '@/server/seed/demo-scenario';
-import { findUserForSignIn } from '@/server/services/sign-in';
+import { findUserForSignIn, type SignInClaims, type SignInOutcome } from '@/server/services/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let testApp: TestApp;
@@ -14,39 +14,94 @@ afterAll(async () => {
   await testApp.close();
 });
 
+/** The person an outcome signs in, or fails the test naming what it was instead. */
+function personOf(outcome: SignInOutcome): User {
+  if (outcome.kind !== 'person') throw new Error(`expected a person, got ${JSON.stringify(outcome)}`);
+  return outcome.user;
+}
+
+async function pelagicInviter() {
+  const pelagic = await Organisation.findOne({ where: { slug: demoOrganisations.pelagic.slug }, rejectOnEmpty: true });
+  return { pelagic, inviter: await User.findOne({ where: { organisationId: pelagic.id }, rejectOnEmpty: true }) };
+}
+
 describe('findUserForSignIn', () => {
-  it('does not link by an e-mail the provider has not verified', async () => {
+  it('refuses an unverified address with email_not_verified, and links nothing', async () => {
     if (!tomas) throw new Error('demo-tomas is missing from the demo people');
     const claims = { provider: 'google' as const, subject: 'g-unverified', email: tomas.email, name: tomas.name, emailVerified: false };
-    expect(await findUserForSignIn(claims)).toBeNull();
+    expect(await findUserForSignIn(claims)).toEqual({ kind: 'refused', code: 'email_not_verified' });
     expect(await Identity.count({ where: { subject: 'g-unverified' } })).toBe(0);
   });
 
-  it('matches e-mail addresses without regard to case and surrounding space', async () => {
+  it('never links a new identity to a person by a verified address alone, whatever its case and spacing', async () => {
     if (!tomas) throw new Error('demo-tomas is missing from the demo people');
-    const user = await findUserForSignIn({ provider: 'google', subject: 'g-tomas', email: ` ${tomas.email.toUpperCase()} `, name: '', emailVerified: true });
-    expect(user?.email).toBe(tomas.email);
-    expect(await Identity.count({ where: { subject: 'g-tomas', userId: user?.id } })).toBe(1);
+    const claims: SignInClaims = {
+      provider: 'google',
+      subject: 'g-tomas',
+      email: ` ${tomas.email.toUpperCase()} `,
+      name: '',
+      emailVerified: true,
+    };
+    expect(await findUserForSignIn(claims)).toEqual({ kind: 'refused', code: 'identity_not_linked' });
+    expect(await Identity.count({ where: { subject: 'g-tomas' } })).toBe(0);
   });
 
   it('finds the person by a linked identity even when the e-mail has changed at the provider', async () => {
-    const user = await findUserForSignIn({ provider: 'google', subject: 'g-tomas', email: 'tomas@elsewhere.example', name: '', emailVerified: false });
-    expect(user?.email).toBe(tomas?.email);
+    const user = personOf(
+      await findUserForSignIn({ provider: 'sso', subject: 'demo-tomas', email: 'tomas@elsewhere.example', name: '', emailVerified: false }),
+    );
+    expect(user.email).toBe(tomas?.email);
   });
 
   it('does not accept an invitation twice', async () => {
-    const pelagic = await Organisation.findOne({ where: { slug: demoOrganisations.pelagic.slug }, rejectOnEmpty: true });
-    const inviter = await User.findOne({ where: { organisationId: pelagic.id }, rejectOnEmpty: true });
+    const { pelagic, inviter } = await pelagicInviter();
     const email = 'wren.ashby@pelagic-orbital.example';
     await Invitation.create({ organisationId: pelagic.id, invitedById: inviter.id, email, name: 'Wren Ashby' });
-    const first = await findUserForSignIn({ provider: 'sso', subject: 'sso-wren', email, name: 'Wren Ashby', emailVerified: true });
+    const first = personOf(
+      await findUserForSignIn({ provider: 'sso', subject: 'sso-wren', email, name: 'Wren Ashby', emailVerified: true }),
+    );
     expect(first).toEqual(expect.objectContaining({ email, name: 'Wren Ashby', organisationId: pelagic.id }));
-    const other = await findUserForSignIn({ provider: 'google', subject: 'g-wren', email, name: 'Wren Ashby', emailVerified: true });
-    expect(other?.id).toBe(first?.id);
+    // The accepted invitation does not let a second provider's identity in.
+    expect(await findUserForSignIn({ provider: 'google', subject: 'g-wren', email, name: 'Wren Ashby', emailVerified: true })).toEqual({
+      kind: 'refused',
+      code: 'identity_not_linked',
+    });
     expect(await User.count({ where: { email } })).toBe(1);
   });
 
-  it('returns null for an e-mail nobody has and nobody invited', async () => {
-    expect(await findUserForSignIn({ provider: 'sso', subject: 'sso-stranger', email: 'stranger@example.org', name: 'Stranger', emailVerified: true })).toBeNull();
+  it('takes the name from the invitation when the provider gives none usable', async () => {
+    const { pelagic, inviter } = await pelagicInviter();
+    const email = 'ida.moss@pelagic-orbital.example';
+    await Invitation.create({ organisationId: pelagic.id, invitedById: inviter.id, email, name: 'Ida Moss' });
+    const user = personOf(await findUserForSignIn({ provider: 'sso', subject: 'sso-ida', email, name: 'Ida\nMoss', emailVerified: true }));
+    expect(user.name).toBe('Ida Moss');
+  });
+
+  it('refuses an invitation for the other provider with other_provider', async () => {
+    const { pelagic, inviter } = await pelagicInviter();
+    const email = 'noor.vale@pelagic-orbital.example';
+    await Invitation.create({ organisationId: pelagic.id, invitedById: inviter.id, email, name: 'Noor Vale', provider: 'sso' });
+    expect(await findUserForSignIn({ provider: 'google', subject: 'g-noor', email, name: 'Noor Vale', emailVerified: true })).toEqual({
+      kind: 'refused',
+      code: 'other_provider',
+    });
+    expect(
+      personOf(await findUserForSignIn({ provider: 'sso', subject: 'sso-noor', email, name: 'Noor Vale', emailVerified: true })).email,
+    ).toBe(email);
+  });
+
+  it('returns no_account for an e-mail nobody has and nobody invited', async () => {
+    expect(
+      await findUserForSignIn({
+        provider: 'sso',
+        subject: 'sso-stranger',
+        email: 'stranger@example.org',
+        name: 'Stranger',
+        emailVerified: true,
+      }),
+    ).toEqual({
+      kind: 'refused',
+      code: 'no_account',
+    });
   });
 });

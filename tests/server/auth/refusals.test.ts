@@ -1,14 +1,9 @@
-import type { Express } from 'express';
 import net from 'node:net';
 import request from 'supertest';
-import { createApp } from '@/server/app';
-import type { Config } from '@/server/env';
-import { createMailer, type Mailer } from '@/server/services/mailer';
 import { callbackFromFake, locationOf, type Agent, type Provider } from '../helpers/sign-in';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let testApp: TestApp;
-const mailers: Mailer[] = [];
 const warnings = jest.spyOn(console, 'warn').mockImplementation(() => undefined);
 
 beforeAll(async () => {
@@ -18,17 +13,8 @@ beforeAll(async () => {
 beforeEach(() => warnings.mockClear());
 
 afterAll(async () => {
-  for (const mailer of mailers) mailer.close();
   await testApp.close();
 });
-
-/** The same database with a changed configuration, built by the real app factory. */
-function appWith(change: (config: Config) => Config): Express {
-  const config = change(testApp.config);
-  const mailer = createMailer(config.smtp);
-  mailers.push(mailer);
-  return createApp({ config, sequelize: testApp.sequelize, mailer, events: testApp.events });
-}
 
 const landing = async (agent: Agent, path: string) => locationOf(await agent.get(path).expect(302));
 
@@ -57,15 +43,6 @@ describe('cancelling at the provider', () => {
   });
 });
 
-describe('sign-in rate limit', () => {
-  it('sends the third start within 15 minutes to the sign-in page with too_many_requests', async () => {
-    const agent = request.agent(appWith((config) => ({ ...config, signInRateLimit: 2 })));
-    expect(await landing(agent, '/api/auth/google')).toMatch(/^http/);
-    expect(await landing(agent, '/api/auth/sso')).toMatch(/^http/);
-    expect(await landing(agent, '/api/auth/google')).toBe('/sign-in?error=too_many_requests');
-  });
-});
-
 describe('an unreachable company identity provider', () => {
   let closedPort = 0;
   beforeAll(async () => {
@@ -76,7 +53,7 @@ describe('an unreachable company identity provider', () => {
   });
 
   it('does not stop the app from starting, and sends SSO sign-ins back with provider_error', async () => {
-    const app = appWith((config) => ({ ...config, sso: { ...config.sso, issuer: `http://127.0.0.1:${closedPort}` } }));
+    const app = testApp.appWith((config) => ({ ...config, sso: { ...config.sso, issuer: `http://127.0.0.1:${closedPort}` } }));
     const agent = request.agent(app);
     expect(await landing(agent, '/api/auth/sso')).toBe('/sign-in?error=provider_error');
     expect(warnings).toHaveBeenCalledWith(expect.stringContaining('[auth] SSO discovery failed'));

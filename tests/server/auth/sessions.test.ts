@@ -35,6 +35,7 @@ describe('GET /api/auth/session', () => {
         { id: 'google', label: 'Google', startUrl: '/api/auth/google' },
         { id: 'sso', label: 'Company SSO', startUrl: '/api/auth/sso' },
       ],
+      invitationChoice: null,
     });
     expect(response.headers['cache-control']).toBe('no-store');
   });

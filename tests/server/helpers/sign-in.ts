@@ -1,10 +1,20 @@
+import { CookieAccessInfo } from 'cookiejar';
 import type { Express } from 'express';
 import request from 'supertest';
+import { demoPeople, type DemoPerson } from '@/server/seed/demo-scenario';
 
 export type Provider = 'google' | 'sso';
 /** Whom to choose at the fake: a demo person's subject, 'cancel', or someone else by name and e-mail. */
 export type FakeChoice = string | { name: string; email: string };
 export type Agent = ReturnType<typeof request.agent>;
+
+/** The Cookie header an agent sends: to make its requests to another app on the same database (another API process). */
+export function cookieHeaderOf(agent: Agent): string {
+  return agent.jar
+    .getCookies(CookieAccessInfo.All)
+    .map((cookie) => `${cookie.name}=${cookie.value}`)
+    .join('; ');
+}
 
 /** Where a redirect response points; fails the test when it is not a redirect. */
 export function locationOf(response: request.Response): string {
@@ -77,7 +87,8 @@ export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, cho
   });
   const back = await followAtFake(jar, chosen, formUrl, callbackPath);
   const callback = new URL(back.url);
-  if (callback.pathname !== callbackPath) throw new Error(`the fake ended at ${back.url} (${back.response.status}), not at ${callbackPath}`);
+  if (callback.pathname !== callbackPath)
+    throw new Error(`the fake ended at ${back.url} (${back.response.status}), not at ${callbackPath}`);
   return callback;
 }
 
@@ -87,7 +98,8 @@ export async function chooseAtFake(jar: CookieJar, authorizationUrl: string, cho
  */
 export async function callbackFromFake(agent: Agent, choice: FakeChoice, provider: Provider): Promise<string> {
   const authorizationUrl = locationOf(await agent.get(`/api/auth/${provider}`).expect(302));
-  if (!authorizationUrl.startsWith('http')) throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
+  if (!authorizationUrl.startsWith('http'))
+    throw new Error(`GET /api/auth/${provider} redirected to ${authorizationUrl}, not to the provider`);
   const callback = await chooseAtFake(new CookieJar(), authorizationUrl, choice, `/api/auth/${provider}/callback`);
   return `${callback.pathname}${callback.search}`;
 }
@@ -103,4 +115,11 @@ export async function signIn(app: Express, choice: FakeChoice, provider: Provide
   if (landing !== '/crafts') throw new Error(`signing ${JSON.stringify(choice)} in with ${provider} ended at ${landing}`);
   const session = await agent.get('/api/auth/session').expect(200);
   return { agent, csrfToken: session.body.csrfToken as string };
+}
+
+/** The demo person the sign-in fake offers under this subject (e.g. 'demo-ines'); fails the test when there is none. */
+export function demoPerson(subject: string): DemoPerson {
+  const found = demoPeople.find((candidate) => candidate.subject === subject);
+  if (!found) throw new Error(`no demo person ${subject}`);
+  return found;
 }

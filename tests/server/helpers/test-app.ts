@@ -35,6 +35,8 @@ export interface TestApp {
   sequelize: Sequelize;
   config: Config;
   events: SheetEvents;
+  /** Another app on the same database with a changed configuration, built by the real app factory (closed with this one). */
+  appWith(change: (config: Config) => Config): Express;
   close(): Promise<void>;
 }
 
@@ -49,13 +51,20 @@ export async function createTestApp(): Promise<TestApp> {
   const mailer = createMailer(config.smtp);
   const events = createSheetEvents(config.databaseUrl);
   const app = createApp({ config, sequelize, mailer, events });
+  const mailers = [mailer];
   return {
     app,
     sequelize,
     config,
     events,
+    appWith: (change) => {
+      const changed = change(config);
+      const ownMailer = createMailer(changed.smtp);
+      mailers.push(ownMailer);
+      return createApp({ config: changed, sequelize, mailer: ownMailer, events });
+    },
     close: async () => {
-      mailer.close();
+      for (const each of mailers) each.close();
       await events.close();
       await sequelize.close();
       await adminQuery(`DROP DATABASE "${name}" WITH (FORCE)`);
