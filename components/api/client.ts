@@ -66,13 +66,17 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   path: string,
   options: RequestOptions<S> = {},
 ): Promise<Result<S>> {
+  return withFreshCsrfToken(() => send(method, path, options));
+}
+
+/** Runs the call; a token from before a sign-in or sign-out elsewhere is void: fetch the current one and try once more. */
+async function withFreshCsrfToken<T>(call: () => Promise<T>): Promise<T> {
   try {
-    return await send(method, path, options);
+    return await call();
   } catch (error) {
-    // A token from before a sign-in or sign-out elsewhere is void: fetch the current one and try once more.
     if (!(error instanceof ApiError && error.code === 'invalid_csrf_token')) throw error;
     rememberCsrfToken(null);
-    return send(method, path, options);
+    return call();
   }
 }
 
@@ -98,30 +102,62 @@ async function send<S extends z.ZodType | undefined>(
     throw new ApiError(0, 'network_error', `Could not reach the server (${method} ${path}): ${reason}`);
   }
 
-  const payload = await readJson(response);
-  if (!response.ok) throw toApiError(response.status, payload, method, path);
+  return answerOf(response.status, await response.text(), schema as S, method, path);
+}
+
+/** The reply parsed by `schema`, or the ApiError it stands for. */
+function answerOf<S extends z.ZodType | undefined>(status: number, text: string, schema: S, method: Method, path: string): Result<S> {
+  const payload = readJson(text);
+  if (status < 200 || status > 299) throw toApiError(status, payload, method, path);
   if (schema === undefined) return undefined as Result<S>;
 
   const parsed = schema.safeParse(payload);
   if (!parsed.success) {
     const where = parsed.error.issues[0]?.path.join('.') || '(root)';
-    throw new ApiError(
-      response.status,
-      'unexpected_response',
-      `The server's answer to ${method} ${path} was not understood at "${where}".`,
-    );
+    throw new ApiError(status, 'unexpected_response', `The server's answer to ${method} ${path} was not understood at "${where}".`);
   }
   return parsed.data as Result<S>;
 }
 
-async function readJson(response: Response): Promise<unknown> {
-  const text = await response.text();
+function readJson(text: string): unknown {
   if (text === '') return undefined;
   try {
     return JSON.parse(text) as unknown;
   } catch {
     return text;
   }
+}
+
+/**
+ * Sends a form with a file (multipart/form-data) to the API with cookies and the CSRF header, telling
+ * `onProgress` the fraction sent so far; resolves and rejects as `apiRequest` does. XMLHttpRequest, because
+ * fetch does not report an upload's progress.
+ */
+export async function apiUpload<S extends z.ZodType>(
+  path: string,
+  form: FormData,
+  { schema, onProgress }: { schema: S; onProgress?: (fraction: number) => void },
+): Promise<z.output<S>> {
+  const send = async () => {
+    const token = await currentCsrfToken();
+    const { status, text } = await new Promise<{ status: number; text: string }>((resolve, reject) => {
+      const request = new XMLHttpRequest();
+      request.open('POST', apiUrl(path));
+      request.withCredentials = true;
+      request.setRequestHeader('accept', 'application/json');
+      request.setRequestHeader('x-csrf-token', token);
+      request.upload.onprogress = (event) => {
+        if (event.lengthComputable && event.total > 0) onProgress?.(event.loaded / event.total);
+      };
+      // A small file may go in one piece without a progress event: all of it is sent once the upload loads.
+      request.upload.onload = () => onProgress?.(1);
+      request.onload = () => resolve({ status: request.status, text: request.responseText });
+      request.onerror = () => reject(new ApiError(0, 'network_error', `Could not reach the server (POST ${path})`));
+      request.send(form);
+    });
+    return answerOf(status, text, schema, 'POST', path) as z.output<S>;
+  };
+  return withFreshCsrfToken(send);
 }
 
 function toApiError(status: number, payload: unknown, method: Method, path: string): ApiError {

@@ -30,7 +30,7 @@ export function LockBaselineForm({ craftId, from, onDone }: FormProps) {
   );
 }
 
-/** Opens a study (a named branch for what-if work) from a revision. */
+/** Opens a study (a named branch to try changes in) from a revision. */
 export function OpenStudyForm({ craftId, from, onDone, onOpened }: FormProps & { onOpened: (study: Revision) => void }) {
   const open = useOpenStudy(craftId);
   const { control, submit, formError, isSubmitting } = useSchemaForm({

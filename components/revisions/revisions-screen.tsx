@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { Linking, StyleSheet, View } from 'react-native';
 import { ApiError } from '@/components/api/client';
 import { useSessionUser } from '@/components/auth/queries';
+import { WorkbookExchange } from '@/components/exchange/workbook-exchange';
 import { craftOptions } from '@/components/crafts/queries';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -23,7 +24,7 @@ import { revisionListOptions } from './queries';
 import { LockBaselineForm, OpenStudyForm } from './revision-forms';
 
 /** What is open below a revision: a form or the promotion of a study. */
-type Opened = { action: 'lock' | 'study' | 'promote'; revisionId: string };
+type Opened = { action: 'lock' | 'study' | 'promote' | 'exchange'; revisionId: string };
 
 /** Where a revision's sheet opens: the draft's own address, or the sheet of that revision. */
 function sheetHref(craftId: string, revision: Revision): Href {
@@ -101,6 +102,12 @@ function RevisionCard({ craftId, revision, compareWith, who, opened, onOpen }: R
             testID={`revision-pack-${revision.id}`}
           />
         ) : null}
+        <Button
+          label="Spreadsheet exchange"
+          tone="secondary"
+          onPress={() => onOpen(here === 'exchange' ? undefined : { action: 'exchange', revisionId: revision.id })}
+          testID={`revision-exchange-${revision.id}`}
+        />
         {canLock ? (
           <Button label="Lock as baseline" onPress={() => onOpen({ action: 'lock', revisionId: revision.id })} testID="revision-lock" />
         ) : null}
@@ -125,6 +132,7 @@ function RevisionCard({ craftId, revision, compareWith, who, opened, onOpen }: R
         <OpenStudyForm craftId={craftId} from={revision} onDone={close} onOpened={(study) => router.push(sheetHref(craftId, study))} />
       ) : null}
       {here === 'promote' ? <PromotePanel craftId={craftId} study={revision} onDone={close} /> : null}
+      {here === 'exchange' ? <WorkbookExchange craftId={craftId} revision={revision} who={who} onDone={close} /> : null}
     </View>
   );
 }

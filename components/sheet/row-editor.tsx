@@ -9,6 +9,8 @@ import { TextField } from '@/components/ui/text-field';
 import { fonts, space } from '@/components/ui/theme';
 import { compatibleUnits, fromSI, parseUnit, toSI } from '@/shared/engine';
 import { parameterKeyProblem, type Parameter } from '@/shared/schemas/sheet';
+import { EvidenceSection } from './evidence/evidence-section';
+import { MaturityPicker } from './evidence/maturity-picker';
 import { computedText, RowNotices, statusText } from './row-feedback';
 import { RowHistory } from './row-history';
 import { SheetPanel } from './sheet-panel';
@@ -75,7 +77,7 @@ function RenameField({ parameter, onRename }: { parameter: Parameter; onRename: 
 /**
  * The edit sheet of one row (a panel over the screen): its value on a phone, its unit among those of the
  * same dimension, label and maturity for those who edit it; key, subsystem, order and deletion for those
- * who manage rows; its history for everyone who sees it.
+ * who manage rows; its evidence and history for everyone who sees it.
  */
 export function RowEditor(props: RowEditorProps) {
   const { craftId, revisionId, rowKey, rows, actions, access, message, conflict, groups, maturities, withValue, onClose } = props;
@@ -121,12 +123,13 @@ export function RowEditor(props: RowEditorProps) {
                 testID="row-unit-picker"
               />
               {parameter.mass !== undefined ? (
-                <ChoiceChips
-                  label="Maturity"
-                  choices={maturities.map((maturity) => ({ value: maturity.id, label: maturity.label }))}
+                <MaturityPicker
+                  craftId={craftId}
+                  revisionId={revisionId}
+                  rowKey={rowKey}
+                  maturities={maturities}
                   value={parameter.mass.maturity}
                   onChange={(maturity) => parameter.mass && actions.save(rowKey, { mass: { ...parameter.mass, maturity } })}
-                  testID="row-maturity"
                 />
               ) : null}
             </>
@@ -174,6 +177,7 @@ export function RowEditor(props: RowEditorProps) {
               )}
             </View>
           ) : null}
+          <EvidenceSection craftId={craftId} revisionId={revisionId} rowKey={rowKey} />
           <RowHistory craftId={craftId} revisionId={revisionId} rowKey={rowKey} />
         </ScrollView>
       )}

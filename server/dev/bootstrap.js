@@ -44,8 +44,23 @@ function ensureChromium() {
   run('apt-get', ['install', '-y', '-qq', 'chromium']);
 }
 
+/** LibreOffice Calc recalculates exported workbooks in the exchange tests, as a partner's spreadsheet program would. */
+function ensureLibreOffice() {
+  if (fs.existsSync('/usr/bin/soffice')) return;
+  if (typeof process.getuid !== 'function' || process.getuid() !== 0) {
+    console.error('[trimsheet] the workbook tests need LibreOffice Calc: run `sudo apt-get install -y libreoffice-calc`');
+    process.exit(1);
+  }
+  console.log('[trimsheet] installing LibreOffice Calc for the workbook tests (apt-get)...');
+  run('apt-get', ['update', '-qq']);
+  run('apt-get', ['install', '-y', '-qq', 'libreoffice-calc']);
+}
+
 ensureDependencies();
-if (mode === 'test') ensureChromium();
+if (mode === 'test') {
+  ensureChromium();
+  ensureLibreOffice();
+}
 
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
 const child = spawn(tsx, [path.join(root, 'server', 'dev', 'stack.ts'), mode, ...rest], { cwd: root, stdio: 'inherit' });

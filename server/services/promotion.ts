@@ -13,6 +13,7 @@ import {
   type RowChange,
   type StoredRow,
 } from '../models/sheet-rows';
+import { copyRowLinks } from '../models/attachment';
 import { recordAudit } from './audit';
 import { notifySubsystemOwners } from './notifications';
 import { authorizeCraft } from './craft-access';
@@ -167,6 +168,9 @@ export async function promoteStudy(
 
     const studyKeys = studyRows.map((row) => row.key);
     const { changes, subsystemOf } = await applySteps(sequelize, transaction, user, draftId, draftRows, studyKeys, resolved.steps);
+    // Evidence attached in the study comes along with the rows taken from it (removals in the study do not).
+    const taken = resolved.steps.filter((step) => step.action !== 'delete').map((step) => step.key);
+    if (taken.length > 0) await copyRowLinks(sequelize, transaction, studyId, draftId, taken);
     if (changes.length > 0) {
       await recordChanges(sequelize, draftId, changes, user.id, transaction);
       await sequelize.query('UPDATE revisions SET updated_at = now() WHERE id = $1', { bind: [draftId], transaction });

@@ -3,6 +3,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { RevisionStanding } from '@/shared/access/permissions';
 import type { MergeRow } from '@/shared/revisions/merge';
 import type { User } from '../models';
+import { copyRowLinks } from '../models/attachment';
 import { toParameter, type StoredRow } from '../models/sheet-rows';
 import { announce } from './sheet-events';
 
@@ -22,7 +23,7 @@ export interface RevisionCopy {
 }
 
 /**
- * A new open revision with the source's sheet header and a copy of each of its rows. Rows keep their
+ * A new open revision with the source's sheet header and a copy of each of its rows and their evidence. Rows keep their
  * versions, last editor and time: a baseline says of each row what the draft said when it was locked, and
  * a study starts where its source was (its own edits count on from there). Returns the new revision's id.
  */
@@ -55,6 +56,8 @@ export async function copyRevision(sequelize: Sequelize, transaction: Transactio
      FROM revision_parameters WHERE revision_id = $1`,
     { bind: [sourceId, id], transaction },
   );
+  // Evidence follows its rows by link: the copy names the same files, whose bytes are stored once.
+  await copyRowLinks(sequelize, transaction, sourceId, id);
   return id;
 }
 

@@ -48,7 +48,7 @@ export async function ensureSubsystems(
 }
 
 /** A revision's row as the API reads it, with the names of who created and locked it. */
-interface RevisionRecord {
+export interface RevisionRecord {
   id: string;
   craftId: string;
   kind: RevisionDto['kind'];

@@ -62,7 +62,8 @@ function tokenize(body: string, offset: number): Token[] {
   return tokens;
 }
 
-const BINARY_PRECEDENCE: Readonly<Record<string, number>> = {
+/** How tightly each binary operator binds (comparison < + - < * / < ^), as HyperFormula reads them. */
+export const BINARY_PRECEDENCE: Readonly<Record<string, number>> = {
   '=': 1,
   '<>': 1,
   '<': 1,
