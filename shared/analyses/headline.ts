@@ -1,7 +1,8 @@
 import type { BudgetRollUp } from '@/shared/budget';
 import { sheetBudget, type AnalysisResult, type Evaluation } from '@/shared/engine';
 import type { Parameter, Sheet } from '@/shared/schemas/sheet';
-import { rowRoleDefinitions, sheetRoles, standardHeadline, type RowRole } from '@/shared/templates/roles';
+import { sheetTemplate } from '@/shared/templates';
+import { rowRoleDefinitions, sheetRoles, type RowRole, type TemplateCheck } from '@/shared/templates/roles';
 
 /** One headline figure: the row playing the role and its value in the row's own unit. */
 export interface HeadlineFigure {
@@ -30,15 +31,15 @@ export function sheetMassBudget(sheet: Sheet, evaluation: Evaluation): AnalysisR
 }
 
 /**
- * The headline figures of an evaluated sheet in the headline's order (by default the sail templates':
- * areal density, characteristic acceleration, lightness number, force, temperature, predicted mass,
- * margin). Each reads the row of its role; the margin is flagged from the budget roll-up, which a caller
- * that has rolled the sheet's budget up already (a live sheet does on every edit) passes in.
+ * The headline figures of an evaluated sheet in the headline's order (by default that of the template the
+ * sheet follows; the square sail's: areal density, characteristic acceleration, lightness number, force,
+ * temperature, predicted mass, margin). Each reads the row of its role; the margin is flagged from the budget
+ * roll-up, which a caller that has rolled the sheet's budget up already (a live sheet does on every edit) passes in.
  */
 export function headlineFigures(
   sheet: Sheet,
   evaluation: Evaluation,
-  headline: readonly RowRole[] = standardHeadline,
+  headline: readonly RowRole[] = sheetTemplate(sheet).roles.headline,
   rolledUp?: AnalysisResult<BudgetRollUp>,
 ): HeadlineFigure[] {
   const keys = sheetRoles(sheet);
@@ -74,4 +75,49 @@ export function massAllocation(sheet: Sheet, rolledUp: BudgetRollUp): { label: s
   const key = sheetRoles(sheet).mass_allocation;
   const row = key === undefined ? undefined : sheet.parameters.find((parameter) => parameter.key === key);
   return { label: row?.label ?? rowRoleDefinitions.mass_allocation.label, kg: rolledUp.total.predicted + rolledUp.systemMargin.kg };
+}
+
+/** A template's check read on an evaluated sheet: whether its row says the assumption or requirement holds. */
+export interface CheckResult {
+  readonly role: RowRole;
+  /** The row's key; the role's name when no row plays it. */
+  readonly key: string;
+  readonly status: 'holds' | 'fails' | 'unknown';
+  /** The contract's words for the status, or why the row has no answer. */
+  readonly message: string;
+  /** The headline figure the check qualifies. */
+  readonly beside?: RowRole;
+}
+
+/**
+ * The checks of the template the sheet follows (or those given), each read from its row: 1 holds, 0 fails;
+ * a row with an error, another value or no row at all is `unknown`, with the reason.
+ */
+export function templateChecks(
+  sheet: Sheet,
+  evaluation: Evaluation,
+  checks: readonly TemplateCheck[] = sheetTemplate(sheet).roles.checks,
+): CheckResult[] {
+  const keys = sheetRoles(sheet);
+  return checks.map((check) => {
+    const key = keys[check.role];
+    const beside = check.beside === undefined ? {} : { beside: check.beside };
+    if (key === undefined) {
+      return {
+        role: check.role,
+        key: check.role,
+        status: 'unknown',
+        message: `no row of the sheet has the role "${check.role}"`,
+        ...beside,
+      };
+    }
+    const value = evaluation.values[key]?.value;
+    if (value === 1) return { role: check.role, key, status: 'holds', message: check.holds, ...beside };
+    if (value === 0) return { role: check.role, key, status: 'fails', message: check.fails, ...beside };
+    const problem =
+      value === undefined
+        ? (evaluation.errors.find((error) => error.key === key)?.message ?? `${key}: has no value`)
+        : `${key}: is ${value}, neither 1 (holds) nor 0 (fails)`;
+    return { role: check.role, key, status: 'unknown', message: `${rowRoleDefinitions[check.role].label}: ${problem}`, ...beside };
+  });
 }

@@ -3,7 +3,15 @@
  * the CLI read headline figures, the mass budget and the sizing series from.
  */
 export { siValues, roleValuesSI, findRoleRows, type RoleRow } from '@/shared/analyses/roles';
-export { headlineFigures, massAllocation, sheetMassBudget, BELOW_REQUIRED_MARGIN, type HeadlineFigure } from '@/shared/analyses/headline';
+export {
+  headlineFigures,
+  massAllocation,
+  sheetMassBudget,
+  templateChecks,
+  BELOW_REQUIRED_MARGIN,
+  type CheckResult,
+  type HeadlineFigure,
+} from '@/shared/analyses/headline';
 export {
   coneAngleSeries,
   filmThicknessTrade,

@@ -12,7 +12,7 @@ import {
 import { rowError } from '@/shared/engine/errors';
 import { fromSI, parseUnit, toSI } from '@/shared/engine/units';
 import type { Sheet } from '@/shared/schemas/sheet';
-import { sizingRange, sizingTargetRoles } from '@/shared/templates';
+import { sheetTemplate, sizingRange, sizingTargetRoles, type TemplateDefinition } from '@/shared/templates';
 import { rowRoleDefinitions, sheetRoles, type RowRole } from '@/shared/templates/roles';
 import { findRoleRows, missingRole, type RoleRow } from '@/shared/analyses/roles';
 
@@ -42,9 +42,12 @@ function convert(value: number, from: string, to: string): number {
   return source.ok && target.ok ? fromSI(toSI(value, source.value), target.value) : Number.NaN;
 }
 
-/** The default range of a sized role as text with the template's unit ("5 m"), so a row in another unit converts it. */
-function defaultRange(role: RowRole): { from: string; to: string } | undefined {
-  const range = sizingRange(role);
+/**
+ * The default range of a sized role, the sheet's own template's first, as text with the template's unit ("5 m"),
+ * so a row in another unit converts it.
+ */
+function defaultRange(role: RowRole, template: TemplateDefinition): { from: string; to: string } | undefined {
+  const range = sizingRange(role, template);
   return range === undefined ? undefined : { from: `${range.min} ${range.unit}`, to: `${range.max} ${range.unit}` };
 }
 
@@ -144,7 +147,7 @@ export function filmThicknessTrade(
     return { ok: false, errors: [rowError(film.key, 'invalid_value', `a thickness trade needs film thicknesses above 0: ${detail}`)] };
   }
   const sideValue = side.parameter.value ?? Number.NaN;
-  const range = defaultRange('sail_side') ?? { from: sideValue / 2, to: sideValue * 2 };
+  const range = defaultRange('sail_side', sheetTemplate(sheet)) ?? { from: sideValue / 2, to: sideValue * 2 };
   const lines: FilmThicknessTrade['lines'][number][] = [];
   let invalidPoints = 0;
   let sides: RoleSeries | undefined;
@@ -271,7 +274,7 @@ export interface SizeToTargetRequest {
 export function sizeToTarget(sheet: Sheet, request: SizeToTargetRequest): AnalysisResult<TargetSolveResult> {
   const rows = findRoleRows(sheet, [request.input, request.output]);
   if (!rows.ok) return rows;
-  const range = rangeOf(request.input, request);
+  const range = rangeOf(sheet, request.input, request);
   if (!range.ok) return range;
   return solveForTarget(sheet, {
     input: rows.result[request.input].key,
@@ -303,7 +306,7 @@ export interface RoleSweepResult {
 export function roleSweep(sheet: Sheet, request: RoleSweepRequest): AnalysisResult<RoleSweepResult> {
   const rows = findRoleRows(sheet, [request.input, ...request.outputs]);
   if (!rows.ok) return rows;
-  const range = rangeOf(request.input, request);
+  const range = rangeOf(sheet, request.input, request);
   if (!range.ok) return range;
   const input = rows.result[request.input];
   const outputs = request.outputs.map((role) => rows.result[role]);
@@ -324,10 +327,11 @@ export function roleSweep(sheet: Sheet, request: RoleSweepRequest): AnalysisResu
 }
 
 function rangeOf(
+  sheet: Sheet,
   role: RowRole,
   given: { readonly from?: number | string; readonly to?: number | string },
 ): AnalysisResult<{ from: number | string; to: number | string }> {
-  const fallback = defaultRange(role);
+  const fallback = defaultRange(role, sheetTemplate(sheet));
   const from = given.from ?? fallback?.from;
   const to = given.to ?? fallback?.to;
   if (from === undefined || to === undefined) {
@@ -348,13 +352,17 @@ export interface SizingChoice {
   readonly to: string;
 }
 
-/** The sheet's rows that the templates declare a sizing range for, with that range. */
+/** The sheet's input rows that the templates declare a sizing range for, with that range (a formula row is not sized). */
 export function sizingChoices(sheet: Sheet): SizingChoice[] {
   const keys = sheetRoles(sheet);
+  const template = sheetTemplate(sheet);
+  const inputs = new Set(sheet.parameters.flatMap((parameter) => (parameter.value === undefined ? [] : [parameter.key])));
   return (Object.keys(keys) as RowRole[]).flatMap((role) => {
     const key = keys[role];
-    const range = defaultRange(role);
-    return key === undefined || range === undefined ? [] : [{ role, key, label: rowRoleDefinitions[role].label, ...range }];
+    const range = defaultRange(role, template);
+    return key === undefined || range === undefined || !inputs.has(key)
+      ? []
+      : [{ role, key, label: rowRoleDefinitions[role].label, ...range }];
   });
 }
 

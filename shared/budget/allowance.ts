@@ -36,8 +36,9 @@ export function growthAllowance(preset: AllowancePreset, maturity: string, categ
 }
 
 /**
- * Predicted mass = current best estimate × (1 + allowance).
- * @param cbe current best estimate (kg), finite and >= 0
+ * Predicted mass = basic mass × (1 + allowance) (AIAA S-120A-2015; "basic mass" is its term for the unmargined
+ * estimate, called the current best estimate elsewhere).
+ * @param cbe basic mass (kg), finite and >= 0
  * @param allowance growth allowance (fraction), finite and >= 0
  * @returns predicted mass (kg)
  * @throws BudgetInputError for a negative or non-finite input

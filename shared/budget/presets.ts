@@ -14,6 +14,14 @@ export const hardwareCategories: readonly (LabelledId & { readonly id: HardwareC
   { id: 'other', label: 'Other' },
 ];
 
+/** Sail membranes and booms have no column in the standards' tables: these columns are ours, extrapolated. */
+export const EXTRAPOLATED = ' (our extrapolation)';
+
+/** The categories of the AIAA-style preset, its sail columns marked as extrapolated. */
+const aiaaCategories: readonly LabelledId[] = hardwareCategories.map((category) =>
+  category.id === 'membrane' || category.id === 'boom' ? { ...category, label: `${category.label}${EXTRAPOLATED}` } : category,
+);
+
 /** AIAA S-120A-style design maturity categories, most mature last. */
 export const aiaaMaturities: readonly (LabelledId & { readonly id: Maturity })[] = [
   { id: 'estimated', label: 'Estimated' },
@@ -52,12 +60,13 @@ function uniformRow(percent: number): PercentRow {
 const aiaaPreset: AllowancePreset = {
   id: 'aiaa-s120a',
   name: 'AIAA S-120A-style mass growth allowances',
-  source:
-    'AIAA S-120A-2015 (R2019), Mass Properties Control for Space Systems, with SAWE RP A-3 (from memory)',
+  source: 'AIAA S-120A-2015 (R2019), Mass Properties Control for Space Systems, with SAWE RP A-3 (from memory)',
   caveat:
-    'From memory, verify against the standard: the cells follow the recalled pattern of the AIAA S-120A allowance table (18–35 % estimated, 1–3 % existing hardware, 0 % measured, harness 50 % when estimated) and are not copied from it. The system margin of 15 % is common practice; S-120A leaves it to the programme.',
+    'From memory, verify against the standard: the cells follow the recalled pattern of the AIAA S-120A allowance table (18–35 % estimated, 1–3 % existing hardware, 0 % measured, harness 50 % when estimated) and are not copied from it. The sail membrane and boom columns are our extrapolation: the standard has no such categories. The system margin of 15 % of the allocation is common practice; S-120A leaves it to the programme.',
+  notice:
+    "These allowances are not the AIAA S-120A table: they follow its recalled pattern, and the sail membrane and boom columns are our extrapolation. Load your team's own table (from your licensed copy of the standard) to replace them.",
   maturities: aiaaMaturities,
-  categories: hardwareCategories,
+  categories: aiaaCategories,
   table: percentTable({
     // Columns in the order of hardwareCategories: structure, mechanism, membrane, boom, electrical,
     // harness, thermal, propulsion, payload, other.
@@ -70,13 +79,14 @@ const aiaaPreset: AllowancePreset = {
     customer_furnished: uniformRow(0),
   }),
   systemMarginPercent: 15,
+  systemMarginBasis: 'allocation',
 };
 
-/** ESA SRE-PA/2011.097 maturities. */
+/** ESA SRE-PA/2011.097 maturities, with the words of the margin philosophy (ids kept from earlier sheets). */
 const esaMaturities: readonly LabelledId[] = [
   { id: 'off_the_shelf', label: 'Off-the-shelf' },
-  { id: 'modified', label: 'Modified' },
-  { id: 'new_design', label: 'New design' },
+  { id: 'modified', label: 'Minor modification' },
+  { id: 'new_design', label: 'New design or major modification' },
 ];
 
 /** ESA margin philosophy for science assessment studies: equipment margins by maturity, any category. */
@@ -85,7 +95,7 @@ const esaPreset: AllowancePreset = {
   name: 'ESA margin philosophy (science assessment studies)',
   source: 'ESA, Margin philosophy for science assessment studies, SRE-PA/2011.097',
   caveat:
-    'Equipment margins of 5 % (off-the-shelf), 10 % (modified) and 20 % (new design) apply to every category; the 20 % system margin is defined on the total dry mass, here compared with the allocation.',
+    'Equipment margins of 5 % (off-the-shelf), 10 % (minor modification) and 20 % (new design or major modification) apply to every category. The system margin is 20 % of the nominal dry mass including the equipment margins (the predicted mass): the allocation must be at least 1.2 × the predicted mass, a margin of 16.7 % of the allocation.',
   maturities: esaMaturities,
   categories: hardwareCategories,
   table: percentTable({
@@ -94,6 +104,7 @@ const esaPreset: AllowancePreset = {
     new_design: uniformRow(20),
   }),
   systemMarginPercent: 20,
+  systemMarginBasis: 'predicted',
 };
 
 /** The shipped allowance presets. */

@@ -5,26 +5,11 @@
 
 /** AIAA S-120A-style design maturity categories. */
 export type Maturity =
-  | 'estimated'
-  | 'layout'
-  | 'pre_release_drawings'
-  | 'released_drawings'
-  | 'existing_hardware'
-  | 'measured'
-  | 'customer_furnished';
+  'estimated' | 'layout' | 'pre_release_drawings' | 'released_drawings' | 'existing_hardware' | 'measured' | 'customer_furnished';
 
 /** Hardware categories of a sail craft's mass budget. */
 export type HardwareCategory =
-  | 'structure'
-  | 'mechanism'
-  | 'membrane'
-  | 'boom'
-  | 'electrical'
-  | 'harness'
-  | 'thermal'
-  | 'propulsion'
-  | 'payload'
-  | 'other';
+  'structure' | 'mechanism' | 'membrane' | 'boom' | 'electrical' | 'harness' | 'thermal' | 'propulsion' | 'payload' | 'other';
 
 /** An id with its display label. */
 export interface LabelledId {
@@ -45,15 +30,31 @@ export interface AllowancePreset {
   readonly categories: readonly LabelledId[];
   /** table[maturityId][categoryId] = allowance fraction in [0, 1]. */
   readonly table: Readonly<Record<string, Readonly<Record<string, number>>>>;
-  /** Required system margin (%), of the allocation. */
+  /** Required system margin (%), of the quantity `systemMarginBasis` names. */
   readonly systemMarginPercent: number;
+  /**
+   * What the system margin is a share of: the allocation (margin ≥ p % of the allocation), or the predicted
+   * (nominal dry) mass (allocation ≥ (1 + p/100) × predicted, ESA's definition).
+   */
+  readonly systemMarginBasis: SystemMarginBasis;
+  /** Shown on screen beside the budget while the preset is in use (e.g. that it is not a standard's own table). */
+  readonly notice?: string;
 }
+
+/** What a required system margin is a share of. */
+export type SystemMarginBasis = 'allocation' | 'predicted';
+
+/** The system-margin bases with the words screens use for them. */
+export const systemMarginBases: Readonly<Record<SystemMarginBasis, string>> = {
+  allocation: 'of the allocation',
+  predicted: 'of the predicted mass',
+};
 
 /** One line of a mass budget. */
 export interface BudgetRowInput {
   readonly key: string;
   readonly subsystem: string;
-  /** Current best estimate (kg). */
+  /** Basic mass (kg): AIAA S-120A's term for the unmargined estimate, "current best estimate" elsewhere. */
   readonly cbe: number;
   readonly maturity: string;
   readonly category: string;
@@ -83,7 +84,13 @@ export interface BudgetRollUp {
     /** allocation − predicted total (kg); negative when over the allocation. */
     readonly kg: number;
     readonly percentOfAllocation: number;
+    /** Margin as a share of the predicted total (%); null when nothing is predicted. */
+    readonly percentOfPredicted: number | null;
+    /** The required margin as a share of the allocation (%), whatever basis the preset states it on. */
     readonly requiredPercent: number;
+    /** The required margin as the preset (or the sheet) states it (%), of `requiredBasis`. */
+    readonly requiredPercentOfBasis: number;
+    readonly requiredBasis: SystemMarginBasis;
     readonly belowRequired: boolean;
   };
 }

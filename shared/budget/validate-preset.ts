@@ -42,8 +42,7 @@ function checkTable(table: unknown, maturities: string[], categories: string[], 
     return;
   }
   for (const key of Object.keys(table)) {
-    if (!maturities.includes(key))
-      issues.push({ path: `table.${key}`, message: `'${key}' is not a maturity of this preset` });
+    if (!maturities.includes(key)) issues.push({ path: `table.${key}`, message: `'${key}' is not a maturity of this preset` });
   }
   for (const maturity of maturities) {
     const row = table[maturity];
@@ -87,6 +86,12 @@ export function validatePreset(value: unknown): BudgetIssue[] {
   const margin = value.systemMarginPercent;
   if (typeof margin !== 'number' || !Number.isFinite(margin) || margin < 0 || margin >= 100) {
     issues.push({ path: 'systemMarginPercent', message: 'must be a percentage in [0, 100)' });
+  }
+  if (value.systemMarginBasis !== 'allocation' && value.systemMarginBasis !== 'predicted') {
+    issues.push({ path: 'systemMarginBasis', message: "must be 'allocation' or 'predicted' (what the system margin is a share of)" });
+  }
+  if (value.notice !== undefined && typeof value.notice !== 'string') {
+    issues.push({ path: 'notice', message: 'must be a text when given' });
   }
   return issues;
 }

@@ -12,7 +12,7 @@ import { MASS, formatDimension, parseUnit, sameDimension, toSI } from '@/shared/
  * The mass budget of an evaluated sheet: every row with a maturity and category is a budget line
  * (its value as current best estimate, in kg), rolled up with the sheet's allowance preset
  * against the allocation row (the row whose role is `mass_allocation`), with the sheet's required
- * margin (or the preset's).
+ * margin (or the preset's); a craft's own table in the sheet's budget settings brings its own margin.
  */
 export function sheetBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResult<BudgetRollUp> {
   const errors: EngineError[] = [];
@@ -52,7 +52,8 @@ export function sheetBudget(sheet: Sheet, evaluation: Evaluation): AnalysisResul
   if (!preset.ok) errors.push(rowError('', 'budget_error', preset.message));
   if (errors.length > 0 || allocation === undefined || !preset.ok) return { ok: false, errors };
   try {
-    const requiredMarginPercent = sheet.budget?.requiredMarginPercent;
+    // A craft's own allowance table states its own required margin; the sheet's figure qualifies a shipped preset.
+    const requiredMarginPercent = sheet.budget?.table === undefined ? sheet.budget?.requiredMarginPercent : undefined;
     return {
       ok: true,
       result: rollUpBudget(

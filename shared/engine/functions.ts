@@ -1,5 +1,8 @@
-import { ANGLE, DIMENSIONLESS, MASS, formatDimension, sameDimension, type Dimension } from '@/shared/engine/units';
+import { ANGLE, DIMENSIONLESS, MASS, formatDimension, parseUnit, sameDimension, type Dimension } from '@/shared/engine/units';
 import type { FormulaNode } from '@/shared/engine/formula-parser';
+import { densityModels } from '@/shared/sail/atmosphere-density';
+import { orbitalDecayTime } from '@/shared/sail/orbital-decay';
+import { beamSailBeta } from '@/shared/sail/beam-sail';
 
 /**
  * The functions a sheet formula may call. Each knows its dimensional rule (so formulas are
@@ -22,6 +25,11 @@ export interface SheetFunction {
    * the call is written inline (V8 then optimises it like plain arithmetic); else `evaluate` is called.
    */
   readonly inline?: (args: readonly string[]) => string;
+  /**
+   * Set on the functions of our own that no spreadsheet has (HyperFormula gets them as a plugin): where the
+   * relation it computes comes from.
+   */
+  readonly source?: string;
 }
 
 /** The functions written without arguments that the analysis expands into every mass row of the sheet. */
@@ -79,6 +87,43 @@ function massRows(name: string) {
     const row = node?.kind === 'ref' ? `the mass row ${node.key}` : `argument ${bad + 1}`;
     return `${name} sums mass rows, but ${row} is ${formatDimension(args[bad] ?? DIMENSIONLESS)}, not a mass`;
   };
+}
+
+function dimensionOfUnit(unit: string): Dimension {
+  const parsed = parseUnit(unit);
+  if (!parsed.ok) throw new Error(`a sheet function declares the unit "${unit}": ${parsed.message}`);
+  return parsed.value.dimension;
+}
+
+/**
+ * A function whose arguments each have a fixed dimension, given by a unit of it ('m', 'kg/m^2', '' for a
+ * pure number), and whose result has the dimension of `result`.
+ */
+function fixedDimensions(name: string, argumentUnits: readonly string[], result: string) {
+  const expected = argumentUnits.map(dimensionOfUnit);
+  const resultDimension = dimensionOfUnit(result);
+  return (args: readonly Dimension[]): Dimension | string => {
+    const bad = args.findIndex((dimension, index) => !sameDimension(dimension, expected[index] ?? DIMENSIONLESS));
+    return bad < 0
+      ? resultDimension
+      : `${name} needs argument ${bad + 1} in ${formatDimension(expected[bad] ?? DIMENSIONLESS)}, got ${formatDimension(args[bad] ?? DIMENSIONLESS)}`;
+  };
+}
+
+/**
+ * ORBITAL_LIFETIME(start_altitude, end_altitude, ballistic_coefficient, density_model): decay time of a circular
+ * orbit under drag, NaN (a row error) for an altitude outside the model's table, a ballistic coefficient that is
+ * not positive, or a model number that is not 1 or 2.
+ */
+function orbitalLifetime(startAltitude: number, endAltitude: number, ballisticCoefficient: number, model: number): number {
+  const table = densityModels[model];
+  if (table === undefined) return Number.NaN;
+  try {
+    return orbitalDecayTime(startAltitude, endAltitude, ballisticCoefficient, table);
+  } catch (error) {
+    if (error instanceof RangeError) return Number.NaN;
+    throw error;
+  }
 }
 
 /** Sum of (value, allowance) pairs as predicted masses, value × (1 + allowance), in order. */
@@ -253,5 +298,22 @@ export const sheetFunctions: Readonly<Record<string, SheetFunction>> = {
       for (let index = 0; index + 1 < args.length; index += 2) terms.push(`${args[index] ?? 'NaN'}*(1+${args[index + 1] ?? 'NaN'})`);
       return `(${terms.join('+')})`;
     },
+  },
+  ORBITAL_LIFETIME: {
+    minArgs: 4,
+    maxArgs: 4,
+    dimension: fixedDimensions('ORBITAL_LIFETIME', ['m', 'm', 'kg/m^2', ''], 's'),
+    evaluate: orbitalLifetime,
+    source:
+      'Circular decay under drag, da/dt = −ρ(h) √(μ a) / B with B = m / (C_D A), integrated from the end altitude up to the start (Vallado 2013, §8.6; King-Hele 1987); density model 1: Vallado 2013 Table 8-4 exponential atmosphere, 2: U.S. Standard Atmosphere 1976',
+  },
+  // BEAM_SAIL_BETA(rest_acceleration, distance, reflectivity): speed over c after `distance` under a constant-power beam.
+  BEAM_SAIL_BETA: {
+    minArgs: 3,
+    maxArgs: 3,
+    dimension: fixedDimensions('BEAM_SAIL_BETA', ['m/s^2', 'm', ''], ''),
+    evaluate: beamSailBeta,
+    source:
+      'Flat sail pushed from rest by a beam of constant power, force (P/c)(1 − β)[(1 − R) + 2R/(1 + β)] on the receding sail (Forward 1984, J. Spacecraft Rockets 21(2), for the force at rest), integrated in β to the distance',
   },
 };

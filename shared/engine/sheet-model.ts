@@ -54,9 +54,10 @@ class RowProblem extends Error {
   }
 }
 
-/** The allowance preset a sheet names, or why there is none. */
+/** The allowance preset of a sheet: the craft's own table when it carries one, else the preset it names; or why there is none. */
 export function sheetPreset(budget: Sheet['budget']): Parsed<AllowancePreset> {
   if (budget === undefined) return { ok: false, message: 'the sheet names no allowance preset (budget.preset)' };
+  if (budget.table !== undefined) return { ok: true, value: budget.table };
   const preset = findPreset(budget.preset);
   if (preset === undefined) {
     const known = allowancePresets.map((candidate) => candidate.id).join(', ');
@@ -379,7 +380,8 @@ function sameAsRead(a: Parameter, b: Parameter): boolean {
  * list of mass rows when it sums them). Undefined for a row to analyse afresh.
  */
 function reusableRows(previous: SheetAnalysis, analysis: SheetAnalysis): (index: number) => AnalysedRow | undefined {
-  if (previous.context.budget?.preset !== analysis.context.budget?.preset) return () => undefined;
+  if (previous.context.budget?.preset !== analysis.context.budget?.preset || previous.context.budget?.table !== analysis.context.budget?.table)
+    return () => undefined;
   // Keys whose unit or mass changed, or that only one version has.
   const changed = new Set<string>();
   for (const [key, index] of previous.indexOf) {

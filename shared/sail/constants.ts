@@ -1,9 +1,9 @@
 /**
- * Physical constants for sail sizing, each with its unit (mathjs syntax) and its source.
+ * Physical constants for sail sizing, each with its unit (Trimsheet notation, docs/units.md) and its source.
  * Values are SI.
  */
 
-/** A published constant: SI value, its unit in mathjs syntax, and where the value comes from. */
+/** A published constant: SI value, its unit in Trimsheet notation, and where the value comes from. */
 export interface PhysicalConstant {
   readonly value: number;
   readonly unit: string;
@@ -24,7 +24,7 @@ export const SPEED_OF_LIGHT: PhysicalConstant = {
   source: 'SI definition of the metre (exact)',
 };
 
-/** Astronomical unit (m), exact. mathjs has no AU unit: the engine defines `AU` from this value. */
+/** Astronomical unit (m), exact. The unit list (shared/engine/units.ts) defines `AU` from this value. */
 export const ASTRONOMICAL_UNIT: PhysicalConstant = {
   value: 149_597_870_700,
   unit: 'm',

@@ -1,68 +1,18 @@
 import { ASTRONOMICAL_UNIT, EARTH_GM, EARTH_RADIUS } from '@/shared/sail/constants';
-import { VALLADO_EXPONENTIAL_TABLE, type DensityTable } from '@/shared/sail/atmosphere-density';
+import { VALLADO_EXPONENTIAL_TABLE, atmosphericDensity, checkDensityTable, type DensityTable } from '@/shared/sail/atmosphere-density';
 import { bisect } from '@/shared/sail/numeric';
 import { radiationPressure } from '@/shared/sail/radiation-pressure';
-import { requireFinite, requireInRange, requireNonNegative, requirePositive } from '@/shared/sail/validate';
+import { requireInRange, requireNonNegative, requirePositive } from '@/shared/sail/validate';
 
-/** Drag coefficient of a flat plate in free-molecular flow, 2.2 (common practice). */
+/**
+ * Drag coefficient of a flat plate or compact satellite in free-molecular flow, 2.2: Cook 1965, "Satellite drag
+ * coefficients", Planetary and Space Science 13 (from memory), the value in common use since.
+ */
 export const COMMON_DRAG_COEFFICIENT = 2.2;
 
 /** Shown with every crossover result: the density, and so the crossover, follows the Sun. */
 export const DRAG_CROSSOVER_CAVEAT =
-  'Thermospheric density varies by one to two orders of magnitude over the solar cycle, so the altitude where radiation pressure overtakes drag moves by a few hundred km. The rule of thumb of about 800 km corresponds to high solar activity (common practice). The result holds only for the conditions of the density table used.';
-
-/**
- * Checks a density table: at least two rows, strictly ascending finite altitudes, densities > 0.
- * @throws RangeError naming the table and the row
- */
-export function checkDensityTable(table: DensityTable): DensityTable {
-  const where = `density table '${table.id}'`;
-  if (table.points.length < 2)
-    throw new RangeError(`${where}: needs at least two rows, has ${table.points.length}`);
-  table.points.forEach((point, index) => {
-    requireFinite(where, `points[${index}].altitude`, point.altitude);
-    requirePositive(where, `points[${index}].density`, point.density);
-    const previous = table.points[index - 1];
-    if (previous && point.altitude <= previous.altitude) {
-      throw new RangeError(
-        `${where}: points[${index}].altitude must be above the row before it, got ${point.altitude} m after ${previous.altitude} m`,
-      );
-    }
-  });
-  return table;
-}
-
-/**
- * Atmospheric density by log-linear interpolation in a table (ln ρ linear in altitude, as for an
- * exponential atmosphere between the rows).
- * @param altitude geometric altitude (m), within the table's range
- * @param table density table; default the exponential model table (Vallado 2013, from memory)
- * @returns density (kg/m^3)
- * @throws RangeError when the altitude is outside the table
- */
-export function atmosphericDensity(
-  altitude: number,
-  table: DensityTable = VALLADO_EXPONENTIAL_TABLE,
-): number {
-  checkDensityTable(table);
-  const { points } = table;
-  const first = points[0];
-  const last = points[points.length - 1];
-  if (!first || !last) throw new RangeError(`density table '${table.id}': has no rows`);
-  requireInRange('atmosphericDensity', 'altitude', altitude, first.altitude, last.altitude, { unit: 'm' });
-  let lower = first;
-  for (const upper of points) {
-    if (altitude <= upper.altitude) {
-      if (upper.altitude === lower.altitude) return upper.density;
-      const fraction = (altitude - lower.altitude) / (upper.altitude - lower.altitude);
-      return Math.exp(
-        Math.log(lower.density) + fraction * (Math.log(upper.density) - Math.log(lower.density)),
-      );
-    }
-    lower = upper;
-  }
-  return last.density;
-}
+  'Thermospheric density varies by one to two orders of magnitude over the solar cycle, so the altitude where radiation pressure overtakes drag moves by a few hundred km. The rule of thumb of about 800 km corresponds to high solar activity (common practice). The result holds only for the conditions of the density table used. The speed is the inertial circular-orbit speed: the co-rotation of the atmosphere with the Earth is ignored, which overstates the drag pressure by up to about 13 % in a prograde equatorial orbit (about 0.5 km/s of co-rotation against 7.6 km/s).';
 
 /**
  * Speed of a circular Earth orbit, v = √(GM_earth / (R_earth + h)).
@@ -127,11 +77,7 @@ export type DragCrossoverResult =
  */
 export function dragCrossoverAltitude(options: DragCrossoverOptions = {}): DragCrossoverResult {
   const table = checkDensityTable(options.table ?? VALLADO_EXPONENTIAL_TABLE);
-  const dragCoefficient = requirePositive(
-    'dragCrossoverAltitude',
-    'dragCoefficient',
-    options.dragCoefficient ?? COMMON_DRAG_COEFFICIENT,
-  );
+  const dragCoefficient = requirePositive('dragCrossoverAltitude', 'dragCoefficient', options.dragCoefficient ?? COMMON_DRAG_COEFFICIENT);
   const efficiency = requireInRange('dragCrossoverAltitude', 'efficiency', options.efficiency ?? 1, 0, 1, {
     minExclusive: true,
   });

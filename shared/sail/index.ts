@@ -6,3 +6,4 @@ export * from '@/shared/sail/drag-crossover';
 export * from '@/shared/sail/log-spiral';
 export * from '@/shared/sail/materials';
 export { linspace } from '@/shared/sail/numeric';
+export * from '@/shared/sail/orbital-decay';

@@ -1,6 +1,12 @@
-import { REFERENCE_SAIL_OPTICS, REFERENCE_SAIL_OPTICS_SOURCE } from '@/shared/sail/optics';
+import {
+  REFERENCE_SAIL_OPTICS,
+  REFERENCE_SAIL_OPTICS_SOURCE,
+  UPDATED_SAIL_OPTICS_2015,
+  UPDATED_SAIL_OPTICS_2015_SOURCE,
+  type OpticalCoefficients,
+} from '@/shared/sail/optics';
 
-/** A material property value in SI with its unit (mathjs syntax) and its source. */
+/** A material property value in SI with its unit (Trimsheet notation, docs/units.md) and its source. */
 export interface SourcedValue {
   readonly value: number;
   readonly unit: string;
@@ -9,10 +15,20 @@ export interface SourcedValue {
 
 /** The properties a material may carry. Optical ones describe the material as a sail face. */
 export type MaterialPropertyName =
-  'density' | 'temperatureLimit' | 'reflectivity' | 'specularFraction' | 'emissivity' | 'nonLambertian';
+  | 'density'
+  | 'temperatureLimit'
+  | 'longTermTemperatureLimit'
+  | 'reflectivity'
+  | 'specularFraction'
+  | 'emissivity'
+  | 'nonLambertian'
+  | 'emissivityFront'
+  | 'emissivityBack'
+  | 'nonLambertianFront'
+  | 'nonLambertianBack';
 
-/** What the material is used for on a sail craft. */
-export type MaterialKind = 'film' | 'coating' | 'boom';
+/** What the material is used for on a sail craft; an optical set describes a whole coated sail's faces. */
+export type MaterialKind = 'film' | 'coating' | 'boom' | 'optical-set';
 
 /** One entry of the materials library. */
 export interface Material {
@@ -22,8 +38,10 @@ export interface Material {
   readonly properties: Readonly<Partial<Record<MaterialPropertyName, SourcedValue>>>;
 }
 
-const KAPTON_HN = 'DuPont Kapton HN polyimide film datasheet (from memory)';
-const MYLAR = 'DuPont Teijin Films Mylar polyester film datasheet (from memory)';
+const POLYIMIDE = "Manufacturer's datasheet of PMDA-ODA polyimide film (from memory)";
+const POLYIMIDE_LIFE =
+  "Manufacturer's datasheet of PMDA-ODA polyimide film, service life in air (from memory): about 8 years at 250 °C against about 12 hours at 400 °C";
+const PET = "Manufacturer's datasheet of biaxially oriented PET film (from memory)";
 const CRC = 'CRC Handbook of Chemistry and Physics, density of the elements at 20 °C (from memory)';
 const OPTICS = `${REFERENCE_SAIL_OPTICS_SOURCE}, as the sail's front (aluminium) or back (chromium) face`;
 
@@ -35,26 +53,40 @@ function dimensionless(value: number, source: string): SourcedValue {
   return { value, unit: '', source };
 }
 
+/** The six optical coefficients of a coated sail as material properties, each with the set's source. */
+function opticalSet(optics: OpticalCoefficients, source: string): Material['properties'] {
+  return {
+    reflectivity: dimensionless(optics.reflectivity, source),
+    specularFraction: dimensionless(optics.specularFraction, source),
+    emissivityFront: dimensionless(optics.emissivityFront, source),
+    emissivityBack: dimensionless(optics.emissivityBack, source),
+    nonLambertianFront: dimensionless(optics.nonLambertianFront, source),
+    nonLambertianBack: dimensionless(optics.nonLambertianBack, source),
+  };
+}
+
 /** Materials library: sail films, coatings and boom materials, every value with its source. */
 export const materials: readonly Material[] = [
   {
     id: 'polyimide',
-    name: 'Polyimide film (Kapton HN type)',
+    name: 'Polyimide film (PMDA-ODA)',
     kind: 'film',
     properties: {
-      density: density(1420, KAPTON_HN),
-      // Continuous service up to about 400 °C.
-      temperatureLimit: { value: 673.15, unit: 'K', source: KAPTON_HN },
+      density: density(1420, POLYIMIDE),
+      // The top of the datasheet's range, about 400 °C: a short-term maximum (hours), not a service limit.
+      temperatureLimit: { value: 673.15, unit: 'K', source: `${POLYIMIDE}: short-term maximum, about 400 °C` },
+      // Years in sunlight: the datasheet's long service life holds up to about 250 °C.
+      longTermTemperatureLimit: { value: 523.15, unit: 'K', source: POLYIMIDE_LIFE },
     },
   },
   {
     id: 'pet',
-    name: 'Polyester film (PET, Mylar type)',
+    name: 'Polyester film (biaxially oriented PET)',
     kind: 'film',
     properties: {
-      density: density(1390, MYLAR),
+      density: density(1390, PET),
       // Service up to about 150 °C.
-      temperatureLimit: { value: 423.15, unit: 'K', source: MYLAR },
+      temperatureLimit: { value: 423.15, unit: 'K', source: PET },
     },
   },
   {
@@ -74,10 +106,22 @@ export const materials: readonly Material[] = [
     name: 'Chromium coating (emissive, sail back)',
     kind: 'coating',
     properties: {
-      density: density(7190, CRC),
+      density: density(7150, CRC),
       emissivity: dimensionless(REFERENCE_SAIL_OPTICS.emissivityBack, OPTICS),
       nonLambertian: dimensionless(REFERENCE_SAIL_OPTICS.nonLambertianBack, OPTICS),
     },
+  },
+  {
+    id: 'sail-optics-1999',
+    name: 'Aluminium-front, chromium-back sail: reference optical set (1999)',
+    kind: 'optical-set',
+    properties: opticalSet(REFERENCE_SAIL_OPTICS, REFERENCE_SAIL_OPTICS_SOURCE),
+  },
+  {
+    id: 'sail-optics-2015',
+    name: 'Aluminium-front, chromium-back sail: updated optical set (2015)',
+    kind: 'optical-set',
+    properties: opticalSet(UPDATED_SAIL_OPTICS_2015, UPDATED_SAIL_OPTICS_2015_SOURCE),
   },
   {
     id: 'cfrp',

@@ -48,9 +48,7 @@ export function requireInRange(
     const unit = options.unit ? ` ${options.unit}` : '';
     const open = options.minExclusive ? '(' : '[';
     const close = options.maxExclusive ? ')' : ']';
-    throw new RangeError(
-      `${where}: ${name} must be in ${open}${min}, ${max}${close}${unit}, got ${shown(value)}${unit}`,
-    );
+    throw new RangeError(`${where}: ${name} must be in ${open}${min}, ${max}${close}${unit}, got ${shown(value)}${unit}`);
   }
   return value;
 }

@@ -1,66 +1,20 @@
-import { sheetSchema, type Sheet } from '@/shared/schemas/sheet';
-import squareSail from '@/shared/templates/square-sail.json';
-import { standardHeadline, type RowRole, type SizingInput, type TemplateContract } from '@/shared/templates/roles';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { beamSail } from '@/shared/templates/beam-sail';
+import { bladedSail } from '@/shared/templates/bladed-sail';
+import { dragSail } from '@/shared/templates/drag-sail';
+import { electricSail } from '@/shared/templates/electric-sail';
+import { magneticSail } from '@/shared/templates/magnetic-sail';
+import { sheetRoles, type RowRole, type SizingInput, type TemplateDefinition } from '@/shared/templates/roles';
+import { spinDisc } from '@/shared/templates/spin-disc';
+import { squareSail } from '@/shared/templates/square-sail';
 
 export * from '@/shared/templates/roles';
 
-/** A sheet a craft can start from, with the contract that tells screens and analyses which row is which. */
-export interface TemplateDefinition {
-  readonly id: string;
-  readonly name: string;
-  readonly description: string;
-  /** The starting sheet, validated. Rows carry no `role` here: the contract names them. */
-  readonly sheet: Sheet;
-  readonly roles: TemplateContract;
-}
-
-const squareSailContract: TemplateContract = {
-  rows: {
-    mass_allocation: 'mass_allocation',
-    total_mass: 'total_mass',
-    predicted_mass: 'predicted_mass',
-    system_margin: 'system_margin',
-    sail_area: 'sail_area',
-    sail_side: 'sail_side',
-    film_thickness: 'film_thickness',
-    film_density: 'film_density',
-    film_temperature_limit: 'film_temperature_limit',
-    areal_density: 'areal_density',
-    characteristic_acceleration: 'characteristic_acceleration',
-    lightness_number: 'lightness_number',
-    srp_force: 'srp_force',
-    srp_force_normal: 'srp_force_normal',
-    srp_force_transverse: 'srp_force_transverse',
-    srp_force_optical: 'srp_force_optical',
-    srp_force_circumferential: 'srp_force_circumferential',
-    sail_temperature: 'sail_temperature',
-    distance: 'distance',
-    cone_angle: 'cone_angle',
-    reflectivity: 'reflectivity',
-    specular_fraction: 'specular_fraction',
-    emissivity_front: 'emissivity_front',
-    emissivity_back: 'emissivity_back',
-    nonlambertian_front: 'nonlambertian_front',
-    nonlambertian_back: 'nonlambertian_back',
-    sail_efficiency: 'sail_efficiency',
-  },
-  headline: standardHeadline,
-  sizingInputs: [
-    { role: 'sail_side', min: 5, max: 200 },
-    { role: 'film_thickness', min: 1, max: 12.5 },
-  ],
-};
-
-/** Every template a craft can start from, in the order the chooser offers them. */
-export const templates: readonly TemplateDefinition[] = [
-  {
-    id: 'square-sail',
-    name: 'Square sail',
-    description: 'A square membrane held by four diagonal booms from a central hub: the classic three-axis stabilised sail.',
-    sheet: sheetSchema.parse(squareSail),
-    roles: squareSailContract,
-  },
-];
+/**
+ * Every template a craft can start from, in the order the chooser offers them. A template is its sheet (JSON)
+ * and a module exporting its definition and contract (see square-sail.ts), listed here.
+ */
+export const templates: readonly TemplateDefinition[] = [squareSail, spinDisc, bladedSail, dragSail, beamSail, electricSail, magneticSail];
 
 /** The template with this id, or undefined. */
 export function findTemplate(id: string): TemplateDefinition | undefined {
@@ -68,12 +22,29 @@ export function findTemplate(id: string): TemplateDefinition | undefined {
 }
 
 /**
- * The sizing range the templates declare for a role (the first template that sizes it), with the unit
- * of that template's row, so a sheet whose row is in another unit can convert it; undefined when no
- * template sizes the role.
+ * The template a sheet follows, read from the roles its rows carry (a copy, a sheet read from a file or one
+ * with renamed rows still finds its figures): the template with the most of its contract's roles on the sheet,
+ * then the larger share of them; the first of the registry on a tie or when no row carries a role.
  */
-export function sizingRange(role: RowRole): (SizingInput & { readonly unit: string }) | undefined {
+export function sheetTemplate(sheet: Sheet): TemplateDefinition {
+  const present = sheetRoles(sheet);
+  let best = { template: templates[0] ?? squareSail, found: -1, share: -1 };
   for (const template of templates) {
+    const roles = Object.keys(template.roles.rows) as RowRole[];
+    const found = roles.filter((role) => present[role] !== undefined).length;
+    const share = found / Math.max(roles.length, 1);
+    if (found > best.found || (found === best.found && share > best.share)) best = { template, found, share };
+  }
+  return best.template;
+}
+
+/**
+ * The sizing range declared for a role, with the unit of the declaring template's row (so a sheet whose row is
+ * in another unit can convert it): the preferred template's (a sheet's own, `sheetTemplate`) first, else the
+ * first template that sizes the role; undefined when none does.
+ */
+export function sizingRange(role: RowRole, preferred?: TemplateDefinition): (SizingInput & { readonly unit: string }) | undefined {
+  for (const template of preferred === undefined ? templates : [preferred, ...templates]) {
     const found = template.roles.sizingInputs.find((input) => input.role === role);
     const key = template.roles.rows[role];
     const unit = template.sheet.parameters.find((parameter) => parameter.key === key)?.unit;

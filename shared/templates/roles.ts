@@ -33,6 +33,57 @@ export const rowRoleDefinitions = {
   nonlambertian_front: { label: 'Front non-Lambertian coefficient', dimensionOf: '' },
   nonlambertian_back: { label: 'Back non-Lambertian coefficient', dimensionOf: '' },
   sail_efficiency: { label: 'Sail efficiency', dimensionOf: '' },
+  // A template of another configuration adds the roles its figures, plots and checks read, under its own heading.
+  // Attitude control (square sail)
+  cp_offset: { label: 'Centre-of-pressure offset', dimensionOf: 'm' },
+  disturbance_torque: { label: 'Disturbance torque', dimensionOf: 'N m' },
+  vane_torque_max: { label: 'Vane torque (one vane)', dimensionOf: 'N m' },
+  vanes_can_trim: { label: 'Vanes can trim the offset', dimensionOf: '' },
+  trim_travel: { label: 'Trim-mass travel', dimensionOf: 'm' },
+  inertia_pitch: { label: 'Pitch inertia', dimensionOf: 'kg m^2' },
+  slew_time: { label: 'Slew time', dimensionOf: 's' },
+  // Spin-stabilised disc
+  spin_rate: { label: 'Spin rate', dimensionOf: 'rad/s' },
+  membrane_mass: { label: 'Membrane mass', dimensionOf: 'kg' },
+  peak_stress: { label: 'Peak film stress', dimensionOf: 'Pa' },
+  billow: { label: 'Billow', dimensionOf: 'm' },
+  min_spin_rate: { label: 'Minimum spin rate', dimensionOf: 'rad/s' },
+  billow_within_allowance: { label: 'Billow within the allowance', dimensionOf: '' },
+  precession_rate: { label: 'Precession rate', dimensionOf: 'rad/s' },
+  // Bladed rotating sail
+  root_tension: { label: 'Blade root tension', dimensionOf: 'N' },
+  root_slope: { label: 'Blade root slope', dimensionOf: 'rad' },
+  tip_speed: { label: 'Tip speed', dimensionOf: 'm/s' },
+  tip_speed_limit: { label: 'Tip-speed limit', dimensionOf: 'm/s' },
+  tip_speed_within_limit: { label: 'Tip speed within the film limit', dimensionOf: '' },
+  // Beam-driven sail
+  beam_power: { label: 'Beam power', dimensionOf: 'W' },
+  craft_mass: { label: 'Craft mass', dimensionOf: 'kg' },
+  beam_acceleration: { label: 'Beam acceleration', dimensionOf: 'm/s^2' },
+  diffraction_distance: { label: 'Diffraction distance', dimensionOf: 'm' },
+  speed_at_diffraction_distance: { label: 'Speed at diffraction distance (non-relativistic)', dimensionOf: '' },
+  speed_at_diffraction_distance_relativistic: { label: 'Speed at diffraction distance (relativistic)', dimensionOf: '' },
+  // Electric solar-wind sail
+  tether_voltage: { label: 'Tether voltage', dimensionOf: 'V' },
+  thrust_per_length: { label: 'Thrust per tether length', dimensionOf: 'N/m' },
+  thrust: { label: 'Thrust', dimensionOf: 'N' },
+  // Magnetic sail
+  loop_current: { label: 'Loop current', dimensionOf: 'A' },
+  magnetic_moment: { label: 'Magnetic moment', dimensionOf: 'A m^2' },
+  standoff_distance: { label: 'Stand-off distance', dimensionOf: 'm' },
+  standoff_ratio: { label: 'Stand-off over loop radius', dimensionOf: '' },
+  gyroradius_ratio: { label: 'Gyroradius over stand-off', dimensionOf: '' },
+  loop_mass: { label: 'Loop mass', dimensionOf: 'kg' },
+  far_field_holds: { label: 'Dipole far field holds', dimensionOf: '' },
+  fluid_regime_holds: { label: 'Fluid regime holds', dimensionOf: '' },
+  // Drag (deorbit) sail
+  start_altitude: { label: 'Start altitude', dimensionOf: 'm' },
+  ballistic_coefficient: { label: 'Ballistic coefficient', dimensionOf: 'kg/m^2' },
+  orbital_lifetime: { label: 'Orbital lifetime', dimensionOf: 's' },
+  area_for_25_years: { label: 'Sail area for 25 years', dimensionOf: 'm^2' },
+  area_for_5_years: { label: 'Sail area for 5 years', dimensionOf: 'm^2' },
+  meets_25_year_rule: { label: 'Meets the 25-year rule', dimensionOf: '' },
+  meets_5_year_rule: { label: 'Meets the 5-year rule', dimensionOf: '' },
 } as const satisfies Record<string, { label: string; dimensionOf: string }>;
 
 export type RowRole = keyof typeof rowRoleDefinitions;
@@ -72,11 +123,59 @@ export interface SizingInput {
   readonly max: number;
 }
 
-/** What a template promises: the row of each role, the headline figures in order, and the inputs to size. */
+/**
+ * A chart a template's sheet offers. The square sail's own analyses by name, or a sweep of one input role
+ * reading output roles of one unit (any template can declare one with no code of its own).
+ */
+export type TemplatePlot =
+  | { readonly kind: 'cone-angle' | 'film-thickness' | 'temperature' }
+  | {
+      readonly kind: 'sweep';
+      readonly title: string;
+      /** One line on what the chart answers. */
+      readonly summary: string;
+      readonly input: RowRole;
+      /** Rows of one dimension, drawn on one axis. */
+      readonly outputs: readonly RowRole[];
+      /** The swept range as text with a unit ("0.5 rpm"). */
+      readonly from: string;
+      readonly to: string;
+    };
+
+/**
+ * An assumption or requirement the sheet itself decides: the row of `role` is 1 when it holds and 0 when it
+ * does not (a visible IF formula), and the contract gives the words for each. `beside` names the headline
+ * figure the check qualifies, so a screen shows it there.
+ */
+export interface TemplateCheck {
+  readonly role: RowRole;
+  readonly holds: string;
+  readonly fails: string;
+  readonly beside?: RowRole;
+}
+
+/**
+ * What a template promises: the row of each role, the headline figures in order, the inputs to size, the
+ * charts its sheet offers, the caveats shown with every result, and the checks its rows decide.
+ */
 export interface TemplateContract {
   readonly rows: Partial<Record<RowRole, string>>;
   readonly headline: readonly RowRole[];
   readonly sizingInputs: readonly SizingInput[];
+  readonly plots: readonly TemplatePlot[];
+  readonly caveats: readonly string[];
+  readonly checks: readonly TemplateCheck[];
+}
+
+/** A sheet a craft can start from, with the contract that tells screens and analyses which row is which. */
+export interface TemplateDefinition {
+  readonly id: string;
+  readonly name: string;
+  /** One line for the craft chooser. */
+  readonly description: string;
+  /** The starting sheet, validated. Rows carry no `role` here: the contract names them. */
+  readonly sheet: Sheet;
+  readonly roles: TemplateContract;
 }
 
 /** The key of each role present on the sheet's rows (the first row of a role wins). */

@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { BarChart } from '@/components/ui/bar-chart';
 import { Card } from '@/components/ui/card';
+import { Disclosure } from '@/components/ui/disclosure';
 import { DividedList } from '@/components/ui/divided-list';
 import { MarginBar } from '@/components/ui/margin-bar';
 import { AppText } from '@/components/ui/text';
@@ -10,7 +11,9 @@ import { formatNumber, formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
 import { massAllocation } from '@/shared/analyses';
-import type { BudgetRollUp } from '@/shared/budget';
+import { systemMarginBases, type BudgetRollUp } from '@/shared/budget';
+import { sheetPreset } from '@/shared/engine/sheet-model';
+import { AllowanceTableEditor } from './allowance-table-editor';
 
 // The subsystems' bars cycle through the palette's inks and accent so neighbours differ.
 const barColors = [colors.ink, colors.film, colors.inkMuted, colors.nominal, colors.focusRing, colors.filmPressed];
@@ -102,18 +105,40 @@ function BudgetTable({ budget, labelOf }: { budget: BudgetRollUp; labelOf: (key:
   );
 }
 
+/** The required margin in the words of its basis: "20 % of the predicted mass (16.7 % of the allocation)". */
+function requiredMarginText(margin: BudgetRollUp['systemMargin']): string {
+  const stated = `${formatNumber(margin.requiredPercentOfBasis, 3)} % ${systemMarginBases[margin.requiredBasis]}`;
+  return margin.requiredBasis === 'allocation' ? stated : `${stated} (${formatNumber(margin.requiredPercent, 3)} % of the allocation)`;
+}
+
+export interface MassBudgetViewProps {
+  readonly snapshot: SheetSnapshot;
+  /** The craft whose own allowance table the editor saves. */
+  readonly craftId: string;
+  /** Whether the person may save the craft's allowance table. */
+  readonly canEditTable: boolean;
+}
+
 /**
  * The mass budget by subsystem: basic mass, growth allowance, predicted mass and share of the total,
- * a chart of the shares, and the predicted mass against the allocation with the required margin.
+ * a chart of the shares, and the predicted mass against the allocation with the required margin; the
+ * allowance table it reads (the craft's own, or the sheet's preset with what it is not) and its editor.
  */
-export function MassBudgetView({ snapshot }: { snapshot: SheetSnapshot }) {
+export function MassBudgetView({ snapshot, craftId, canEditTable }: MassBudgetViewProps) {
   const { budget, sheet } = snapshot;
   const allocation = useMemo(() => (budget.ok ? massAllocation(sheet, budget.result) : undefined), [sheet, budget]);
+  const preset = useMemo(() => sheetPreset(sheet.budget), [sheet.budget]);
+  const ownTable = sheet.budget?.table !== undefined;
   const labelOf = (key: string) => sheet.parameters.find((parameter) => parameter.key === key)?.label ?? key;
 
   return (
     <Card testID="mass-budget-view">
       <AppText variant="heading">Mass budget</AppText>
+      {preset.ok && !ownTable && preset.value.notice !== undefined ? (
+        <AppText variant="muted" role="note" testID="mass-budget-preset-notice">
+          {preset.value.notice}
+        </AppText>
+      ) : null}
       {!budget.ok ? (
         <View role="alert" style={styles.problems} testID="mass-budget-problems">
           {budget.errors.map((error) => (
@@ -156,11 +181,22 @@ export function MassBudgetView({ snapshot }: { snapshot: SheetSnapshot }) {
           >
             System margin {formatQuantity(budget.result.systemMargin.kg, 'kg')} (
             {formatNumber(budget.result.systemMargin.percentOfAllocation, 3)} % of the allocation); required{' '}
-            {formatNumber(budget.result.systemMargin.requiredPercent, 3)} %
+            {requiredMarginText(budget.result.systemMargin)}
             {budget.result.systemMargin.belowRequired ? ': below the required margin.' : '.'}
           </AppText>
         </>
       )}
+      {preset.ok ? (
+        <Disclosure label={ownTable ? "Allowance table (the craft's own)" : 'Allowance table'} testID="mass-budget-table-toggle">
+          <AllowanceTableEditor
+            key={JSON.stringify(preset.value)}
+            craftId={craftId}
+            current={preset.value}
+            own={ownTable}
+            canEdit={canEditTable}
+          />
+        </Disclosure>
+      ) : null}
       <SizingCaution testID="mass-budget-caution" />
     </Card>
   );

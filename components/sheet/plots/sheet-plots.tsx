@@ -8,8 +8,10 @@ import { formatQuantity } from '@/shared/format/quantity';
 import { AnalysisCard, AnalysisProblems } from '@/components/sizing/analyses/analysis-card';
 import { FilmThicknessAnalysis } from '@/components/sizing/analyses/film-thickness-trade';
 import type { SheetSnapshot } from '@/components/sizing/use-sheet-session';
-import { coneAngleSeries, temperatureVersusDistance, type RoleSeries } from '@/shared/analyses';
+import { coneAngleSeries, roleSweep, temperatureVersusDistance, type RoleSeries } from '@/shared/analyses';
 import type { AnalysisResult } from '@/shared/engine';
+import { sheetTemplate, type TemplatePlot } from '@/shared/templates';
+import { TemplateCaveats } from '../summary/template-notes';
 import { axisTitle, chartNumber, lineColor } from '@/components/sizing/analyses/chart-text';
 
 /** The errors that keep an analysis from running, each naming its row or role. */
@@ -130,16 +132,65 @@ function TemperaturePlot({ snapshot }: { snapshot: SheetSnapshot }) {
   );
 }
 
+type SweepPlotSpec = Extract<TemplatePlot, { kind: 'sweep' }>;
+
+/** The test id of a declared sweep: its input and output roles. */
+export function sweepPlotID(plot: SweepPlotSpec): string {
+  return `plot-${plot.input}-${plot.outputs.join('-')}`;
+}
+
+/** A sweep a template declares: its output rows along its input row, on the compiled sheet. */
+function SweepPlot({ snapshot, plot }: { snapshot: SheetSnapshot; plot: SweepPlotSpec }) {
+  const result = useMemo(
+    () => roleSweep(snapshot.sheet, { input: plot.input, outputs: plot.outputs, from: plot.from, to: plot.to, steps: 40 }),
+    [snapshot.sheet, plot],
+  );
+  const testID = sweepPlotID(plot);
+  return (
+    <AnalysisCard title={plot.title} summary={plot.summary} testID={testID}>
+      {result.ok ? (
+        <LineChart
+          title={plot.title}
+          x={result.result.input.values}
+          series={result.result.outputs.map((line, k) => ({ label: line.label, color: lineColor(k), values: line.values }))}
+          xLabel={axisTitle(result.result.input.label, result.result.input.unit)}
+          yLabel={axisTitle(result.result.outputs[0]?.label ?? '', result.result.outputs[0]?.unit ?? '')}
+          formatValue={chartNumber}
+          testID={`${testID}-chart`}
+        />
+      ) : (
+        <AnalysisProblems problems={problemsOf(result)} testID={`${testID}-problems`} />
+      )}
+    </AnalysisCard>
+  );
+}
+
+function PlotOf({ snapshot, plot }: { snapshot: SheetSnapshot; plot: TemplatePlot }) {
+  switch (plot.kind) {
+    case 'cone-angle':
+      return <ConeAnglePlot snapshot={snapshot} />;
+    case 'film-thickness':
+      return <FilmThicknessAnalysis sheet={snapshot.sheet} testID="plot-film-trade" />;
+    case 'temperature':
+      return <TemperaturePlot snapshot={snapshot} />;
+    case 'sweep':
+      return <SweepPlot snapshot={snapshot} plot={plot} />;
+  }
+}
+
 /**
- * The sheet's charts, where people would rather look than read: force and acceleration versus cone
- * angle, the film thickness trade, and temperature versus distance with the film limit marked.
+ * The charts of the template the sheet follows, where people would rather look than read (the square sail's:
+ * force and acceleration versus cone angle, the film thickness trade, temperature versus distance with the film
+ * limit marked, and its torques), under the template's caveats.
  */
 export function SheetPlots({ snapshot }: { snapshot: SheetSnapshot }) {
+  const template = useMemo(() => sheetTemplate(snapshot.sheet), [snapshot.sheet]);
   return (
     <View style={styles.plots} testID="sheet-plots">
-      <ConeAnglePlot snapshot={snapshot} />
-      <FilmThicknessAnalysis sheet={snapshot.sheet} testID="plot-film-trade" />
-      <TemperaturePlot snapshot={snapshot} />
+      <TemplateCaveats caveats={template.roles.caveats} testID="sheet-plots-caveats" />
+      {template.roles.plots.map((plot) => (
+        <PlotOf key={plot.kind === 'sweep' ? sweepPlotID(plot) : plot.kind} snapshot={snapshot} plot={plot} />
+      ))}
     </View>
   );
 }

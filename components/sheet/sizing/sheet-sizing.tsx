@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { LineChart } from '@/components/ui/line-chart';
+import { ProgressBar } from '@/components/ui/progress-bar';
 import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
 import { Toggle } from '@/components/ui/toggle';
@@ -104,28 +105,6 @@ function OutputPicker({
           </View>
         ))}
       </View>
-    </View>
-  );
-}
-
-function Progress({ done, total, onCancel }: { done: number; total: number; onCancel: () => void }) {
-  const percent = total > 0 ? Math.round((done / total) * 100) : 0;
-  return (
-    <View style={styles.progress} testID="sizing-progress">
-      <View
-        role="progressbar"
-        aria-label="Sweep progress"
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={percent}
-        style={styles.track}
-      >
-        <View style={[styles.fill, { width: `${percent}%` }]} />
-      </View>
-      <AppText variant="mono">
-        {done} of {total} points
-      </AppText>
-      <Button label="Cancel" tone="quiet" onPress={onCancel} testID="sizing-cancel" />
     </View>
   );
 }
@@ -459,7 +438,19 @@ function SweepOutcome({
   parameter,
   ...apply
 }: ApplyProps & { state: ChunkedSweepState; onCancel: () => void; parameter: Parameter }) {
-  if (state.status === 'running') return <Progress done={state.done} total={state.total} onCancel={onCancel} />;
+  if (state.status === 'running') {
+    return (
+      <ProgressBar
+        label="Sweep progress"
+        done={state.done}
+        total={state.total}
+        counting="points"
+        onCancel={onCancel}
+        testID="sizing-progress"
+        cancelTestID="sizing-cancel"
+      />
+    );
+  }
   if (state.status === 'failed') return <AnalysisProblems problems={state.problems} testID="sizing-sweep-problems" />;
   if (state.status === 'done') return <SweepResult result={state.result} parameter={parameter} {...apply} />;
   return null;
@@ -472,9 +463,6 @@ const styles = StyleSheet.create({
   range: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   rangeField: { flexGrow: 1, flexBasis: 140 },
   start: { alignSelf: 'flex-start' },
-  progress: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.md },
-  track: { flexGrow: 1, minWidth: 160, height: 8, borderRadius: radii.pill, backgroundColor: colors.recess, overflow: 'hidden' },
-  fill: { height: 8, backgroundColor: colors.film },
   result: { gap: space.md },
   answer: { color: colors.ink, fontSize: 15 },
   table: { borderWidth: 1, borderColor: colors.rule, borderRadius: radii.md, overflow: 'hidden' },

@@ -30,7 +30,7 @@ describe('SheetScreen rows', () => {
     await waitFor(() => expect(text('sheet-value-harness_mass')).toBe('1.5 kg'));
   });
 
-  it('refuses a key that reads as a cell reference in the form, sending nothing', async () => {
+  it('refuses a key that looks like a grid address in the form, sending nothing', async () => {
     const { fetchMock } = renderSheet();
     fireEvent.click(await screen.findByTestId('sheet-add-row'));
     await screen.findByTestId('sheet-add-row-form');
@@ -38,7 +38,7 @@ describe('SheetScreen rows', () => {
     change('add-row-label', 'Second boom');
     change('add-row-entry', '3');
     fireEvent.click(screen.getByTestId('add-row-submit'));
-    expect((await screen.findByTestId('add-row-key-error')).textContent).toContain('cell reference');
+    expect((await screen.findByTestId('add-row-key-error')).textContent).toContain('looks like a grid address');
     expect(requests(fetchMock, 'POST', `${revisionPath}/parameters`)).toEqual([]);
   });
 

@@ -21,16 +21,12 @@ describe('growthAllowance', () => {
   });
 
   it('names an unknown category', () => {
-    expect(() => growthAllowance(aiaa, 'layout', 'sail')).toThrow(
-      /category: unknown category 'sail' in preset 'aiaa-s120a'/,
-    );
+    expect(() => growthAllowance(aiaa, 'layout', 'sail')).toThrow(/category: unknown category 'sail' in preset 'aiaa-s120a'/);
   });
 
   it('names a missing cell of an edited preset', () => {
     const edited = { ...esa, table: { ...esa.table, modified: {} } };
-    expect(() => growthAllowance(edited, 'modified', 'boom')).toThrow(
-      /table.modified.boom: preset 'esa-margin' has no allowance/,
-    );
+    expect(() => growthAllowance(edited, 'modified', 'boom')).toThrow(/table.modified.boom: preset 'esa-margin' has no allowance/);
   });
 });
 

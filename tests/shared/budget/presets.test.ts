@@ -15,15 +15,29 @@ describe('allowance presets', () => {
   describe('esa-margin', () => {
     const esa = findPreset('esa-margin');
 
-    it('has 5 %, 10 % and 20 % equipment margins in every category and a 20 % system margin', () => {
-      // ESA SRE-PA/2011.097: 5 % off-the-shelf, 10 % modified, 20 % new design; 20 % system margin
+    it('has 5 %, 10 % and 20 % equipment margins in every category and a 20 % system margin of the predicted mass', () => {
+      // ESA SRE-PA/2011.097: 5 % off-the-shelf, 10 % minor modification, 20 % new design or major modification;
+      // a system margin of 20 % of the nominal dry mass including equipment margins
       expect(esa?.source).toMatch(/SRE-PA\/2011\.097/);
       expect(esa?.systemMarginPercent).toBe(20);
+      expect(esa?.systemMarginBasis).toBe('predicted');
+      expect(esa?.caveat).toMatch(/1\.2 × the predicted mass, a margin of 16\.7 % of the allocation/);
       for (const category of esa?.categories ?? []) {
         expect(esa?.table.off_the_shelf?.[category.id]).toBe(0.05);
         expect(esa?.table.modified?.[category.id]).toBe(0.1);
         expect(esa?.table.new_design?.[category.id]).toBe(0.2);
       }
+    });
+  });
+
+  describe('esa-margin maturities', () => {
+    it('are labelled in the words of the margin philosophy', () => {
+      // ESA SRE-PA/2011.097: off-the-shelf; minor modification; new design or major modification
+      expect(findPreset('esa-margin')?.maturities).toEqual([
+        { id: 'off_the_shelf', label: 'Off-the-shelf' },
+        { id: 'modified', label: 'Minor modification' },
+        { id: 'new_design', label: 'New design or major modification' },
+      ]);
     });
   });
 
@@ -35,6 +49,14 @@ describe('allowance presets', () => {
     it('says it is from memory and is to be verified', () => {
       expect(aiaa?.source).toMatch(/AIAA S-120A/);
       expect(aiaa?.caveat).toMatch(/from memory, verify against the standard/i);
+      expect(aiaa?.systemMarginBasis).toBe('allocation');
+    });
+
+    it('says on screen that it is not the standard’s table, and marks the sail columns as our extrapolation', () => {
+      expect(aiaa?.notice).toMatch(/not the AIAA S-120A table/);
+      expect(aiaa?.categories.find((c) => c.id === 'membrane')?.label).toBe('Sail membrane (our extrapolation)');
+      expect(aiaa?.categories.find((c) => c.id === 'boom')?.label).toBe('Booms (our extrapolation)');
+      expect(aiaa?.categories.filter((c) => c.label.includes('extrapolation')).map((c) => c.id)).toEqual(['membrane', 'boom']);
     });
 
     const maturitiesByDesignMaturity = [

@@ -33,9 +33,7 @@ describe('validatePreset', () => {
 
   it('names an unknown category in a row', () => {
     const edited = { ...esa, table: { ...esa.table, modified: { ...esa.table.modified, cabling: 0.1 } } };
-    expect(validatePreset(edited)).toEqual([
-      { path: 'table.modified.cabling', message: "'cabling' is not a category of this preset" },
-    ]);
+    expect(validatePreset(edited)).toEqual([{ path: 'table.modified.cabling', message: "'cabling' is not a category of this preset" }]);
   });
 
   it('names duplicate and malformed ids, empty texts and a bad system margin', () => {
@@ -53,8 +51,14 @@ describe('validatePreset', () => {
     ]);
   });
 
+  it('names a system-margin basis that is neither the allocation nor the predicted mass', () => {
+    expect(validatePreset({ ...esa, systemMarginBasis: 'dry' })).toEqual([
+      { path: 'systemMarginBasis', message: "must be 'allocation' or 'predicted' (what the system margin is a share of)" },
+    ]);
+  });
+
   it('refuses what is not an object', () => {
     expect(validatePreset(null)).toEqual([{ path: '', message: 'a preset must be an object' }]);
-    expect(validatePreset({})).toHaveLength(8);
+    expect(validatePreset({})).toHaveLength(9);
   });
 });

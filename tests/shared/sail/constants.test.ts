@@ -46,13 +46,10 @@ describe('physical constants', () => {
     expect((MassProduct(Body.Earth) * toSI) / EARTH_GM.value).toBeCloseTo(1, 6);
   });
 
-  it.each(Object.entries(physicalConstants))(
-    '%s has a source and a unit mathjs parses',
-    (_name, constant) => {
-      expect(constant.source.length).toBeGreaterThan(5);
-      expect(() => unit(constant.unit)).not.toThrow();
-    },
-  );
+  it.each(Object.entries(physicalConstants))('%s has a source and a unit mathjs parses', (_name, constant) => {
+    expect(constant.source.length).toBeGreaterThan(5);
+    expect(() => unit(constant.unit)).not.toThrow();
+  });
 
   it('state units of the right dimension', () => {
     expect(unit(SOLAR_IRRADIANCE_1AU.unit).equalBase(unit('W/m^2'))).toBe(true);

@@ -185,13 +185,15 @@ describe('square-sail template', () => {
     expect(valueOf('srp_force_circumferential', { cone_angle: 30 })).toBeCloseTo(normal * 0.5 - transverse * Math.cos(Math.PI / 6), 15);
   });
 
-  it('takes the film temperature limit from the materials library (Kapton HN datasheet, from memory: 400 degC)', () => {
-    expect(valueOf('film_temperature_limit')).toBeCloseTo(673.15, 10);
+  // Was 673.15 K, the datasheet's short-term maximum (about 400 degC), which a sail in sunlight for years must not be held to.
+  it("takes the film's long-term temperature limit from the materials library (polyimide film datasheet, from memory: about 250 degC)", () => {
+    expect(valueOf('film_temperature_limit')).toBeCloseTo(523.15, 10);
   });
 
   it('sizes the membrane and booms from the geometry', () => {
-    // Film 2.5 um x 1420 kg/m^3, aluminium 100 nm x 2700 kg/m^3, chromium 15 nm x 7190 kg/m^3 (materials library).
-    expect(valueOf('membrane_mass')).toBeCloseTo(1600 * (2.5e-6 * 1420 + 100e-9 * 2700 + 15e-9 * 7190), 10);
+    // Film 2.5 um x 1420 kg/m^3, aluminium 100 nm x 2700 kg/m^3, chromium 15 nm x 7150 kg/m^3 (CRC Handbook, from memory;
+    // the library had 7190, which is not the handbook's value).
+    expect(valueOf('membrane_mass')).toBeCloseTo(1600 * (2.5e-6 * 1420 + 100e-9 * 2700 + 15e-9 * 7150), 10);
     expect(valueOf('boom_length')).toBeCloseTo(40 / Math.SQRT2, 10);
     expect(valueOf('boom_mass')).toBeCloseTo(4 * (40 / Math.SQRT2) * 0.02, 10);
   });

@@ -1,20 +1,27 @@
-import { screen, within } from '@testing-library/dom';
+import { fireEvent, screen, waitFor, within } from '@testing-library/dom';
 import { MassBudgetView } from '@/components/sheet/budget/mass-budget-view';
 import { formatNumber } from '@/shared/format/quantity';
 import { SIZING_CAUTION } from '@/shared/analyses/caution';
-import { setupQueryClient } from '../../helpers/api';
+import { findPreset } from '@/shared/budget/presets';
+import { withAllowanceTable } from '@/shared/budget/craft-table';
+import type { Sheet } from '@/shared/schemas/sheet';
+import { demoSession, demoUser, mockFetch, setupQueryClient } from '../../helpers/api';
 import { renderDom } from '../../helpers/render';
 import { snapshotOf, templateWith } from '../../helpers/template-snapshot';
 
-function renderBudget(inputs: Record<string, number> = {}) {
-  const snapshot = snapshotOf(templateWith(inputs));
+function renderSheet(sheet: Sheet, canEditTable = false) {
+  const snapshot = snapshotOf(sheet);
   const { wrapper: Wrapper } = setupQueryClient();
   renderDom(
     <Wrapper>
-      <MassBudgetView snapshot={snapshot} />
+      <MassBudgetView snapshot={snapshot} craftId="craft-1" canEditTable={canEditTable} />
     </Wrapper>,
   );
   return snapshot.budget;
+}
+
+function renderBudget(inputs: Record<string, number> = {}) {
+  return renderSheet(templateWith(inputs));
 }
 
 function renderRolledUp(inputs: Record<string, number> = {}) {
@@ -74,5 +81,68 @@ describe('MassBudgetView', () => {
     expect(budget.ok).toBe(false);
     expect(within(screen.getByTestId('mass-budget-problems')).getByText(/allocation/)).toBeTruthy();
     expect(screen.queryByTestId('mass-budget-table')).toBeNull();
+  });
+
+  it('says the AIAA-style preset is not the standard’s table', () => {
+    renderBudget();
+    expect(screen.getByTestId('mass-budget-preset-notice').textContent).toMatch(/not the AIAA S-120A table/);
+  });
+
+  it('drops that notice once the craft has a table of its own, and states a margin of the predicted mass', () => {
+    // ESA SRE-PA/2011.097's rule in a team's table: 20 % of the nominal dry mass is 16.7 % of the allocation.
+    const aiaa = findPreset('aiaa-s120a');
+    if (aiaa === undefined) throw new Error('aiaa-s120a preset missing');
+    const { notice: _notice, ...cells } = aiaa;
+    renderSheet(
+      withAllowanceTable(templateWith({ mass_allocation: 60 }), {
+        ...cells,
+        id: 'ours',
+        systemMarginPercent: 20,
+        systemMarginBasis: 'predicted',
+      }),
+    );
+    expect(screen.queryByTestId('mass-budget-preset-notice')).toBeNull();
+    expect(screen.getByTestId('mass-budget-margin-text').textContent).toContain(
+      `required 20 % of the predicted mass (${formatNumber(100 / 6, 3)} % of the allocation)`,
+    );
+  });
+
+  it('saves an edited cell as the craft’s own table', async () => {
+    const fetchMock = mockFetch({
+      'GET /api/auth/session': { status: 200, body: demoSession(demoUser) },
+      'PUT /api/crafts/craft-1/allowance-table': (body) => ({
+        status: 200,
+        body: { table: (body as { table: unknown }).table, updatedBy: { id: 'u', name: 'Tomás' }, updatedAt: '2026-12-05T00:00:00.000Z' },
+      }),
+    });
+    renderSheet(templateWith(), true);
+    fireEvent.click(screen.getByTestId('mass-budget-table-toggle'));
+    fireEvent.change(screen.getByTestId('allowance-cell-layout-harness'), { target: { value: '45' } });
+    fireEvent.click(screen.getByTestId('allowance-save'));
+    await waitFor(() => expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'PUT')).toBe(true));
+    const [, init] = fetchMock.mock.calls.find(([, call]) => call?.method === 'PUT') ?? [];
+    const sent = JSON.parse(String(init?.body)) as {
+      table: { table: Record<string, Record<string, number>>; categories: { label: string }[] };
+    };
+    expect(sent.table.table.layout?.harness).toBeCloseTo(0.45, 12);
+    // The team's cells replace ours: its columns are no longer marked as our extrapolation.
+    expect(sent.table.categories.map((category) => category.label)).not.toContainEqual(expect.stringMatching(/extrapolation/));
+  });
+
+  it('keeps a viewer from saving the table', () => {
+    renderSheet(templateWith(), false);
+    fireEvent.click(screen.getByTestId('mass-budget-table-toggle'));
+    expect(screen.getByTestId('allowance-cell-layout-harness')).toBeTruthy();
+    expect(screen.queryByTestId('allowance-save')).toBeNull();
+  });
+
+  it('names a cell that is not a number before sending anything', () => {
+    const fetchMock = mockFetch({ 'GET /api/auth/session': { status: 200, body: demoSession(demoUser) } });
+    renderSheet(templateWith(), true);
+    fireEvent.click(screen.getByTestId('mass-budget-table-toggle'));
+    fireEvent.change(screen.getByTestId('allowance-cell-estimated-boom'), { target: { value: 'lots' } });
+    fireEvent.click(screen.getByTestId('allowance-save'));
+    expect(screen.getByTestId('allowance-problem').textContent).toBe('Estimated × Booms: type a percentage');
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'PUT')).toBe(false);
   });
 });
