@@ -54,15 +54,15 @@ export function AppNavigation({ showPeople }: AppNavigationProps) {
       >
         {side ? (
           <View style={styles.brand}>
-            <SailMark size={32} />
+            <SailMark size={32} backdrop="ink" />
             <AppText style={styles.brandText}>Trimsheet</AppText>
           </View>
         ) : null}
         <TabTrigger name="crafts" href="/crafts" asChild>
           <NavItem label="Crafts" icon="crafts" placement={placement} testID="nav-crafts" />
         </TabTrigger>
-        <TabTrigger name="what-if" href="/what-if" asChild>
-          <NavItem label="Sandbox" icon="what-if" placement={placement} testID="nav-what-if" />
+        <TabTrigger name="sandbox" href="/sandbox" asChild>
+          <NavItem label="Sandbox" icon="sandbox" placement={placement} testID="nav-sandbox" />
         </TabTrigger>
         {showPeople ? (
           <TabTrigger name="people" href="/people" asChild>
@@ -108,7 +108,7 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.md,
     borderRadius: radii.md,
   },
-  sideItemFocused: { backgroundColor: 'rgba(245, 241, 232, 0.12)' },
+  sideItemFocused: { backgroundColor: 'rgba(242, 244, 248, 0.12)' },
   sideLabel: { fontFamily: fonts.medium },
   bottomItem: {
     flex: 1,

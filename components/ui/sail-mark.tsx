@@ -1,13 +1,30 @@
-import Svg, { Line, Path } from 'react-native-svg';
-import { colors } from './theme';
+import Svg, { Circle, Path } from 'react-native-svg';
+import {
+  booms,
+  boomWidth,
+  hubDot,
+  litQuadrant,
+  sailMarkColors,
+  sailMarkSize,
+  shadedQuadrants,
+  type SailMarkBackdrop,
+} from './sail-mark-shape';
 
-/** Trimsheet's mark: a square sail seen at an angle, with its boom. */
-export function SailMark({ size = 48 }: { size?: number }) {
+export type SailMarkProps = {
+  size?: number;
+  /** What the mark sits on; `ink` for ink-blue bands and panels. */
+  backdrop?: SailMarkBackdrop;
+};
+
+/** Trimsheet's mark: a square sail face on, booms as a "+" from the hub, one quadrant lit by the sun. */
+export function SailMark({ size = 48, backdrop = 'ground' }: SailMarkProps) {
+  const color = sailMarkColors(backdrop);
   return (
-    <Svg width={size} height={size} viewBox="0 0 48 48" aria-hidden>
-      <Path d="M8 10 L40 6 L36 38 L4 42 Z" fill={colors.filmWash} stroke={colors.ink} strokeWidth={2} strokeLinejoin="round" />
-      <Line x1={8} y1={10} x2={36} y2={38} stroke={colors.film} strokeWidth={2} />
-      <Line x1={40} y1={6} x2={4} y2={42} stroke={colors.film} strokeWidth={2} />
+    <Svg width={size} height={size} viewBox={`0 0 ${sailMarkSize} ${sailMarkSize}`} aria-hidden>
+      <Path d={shadedQuadrants} fill={color.membrane} />
+      <Path d={litQuadrant} fill={color.lit} />
+      <Path d={booms} stroke={color.booms} strokeWidth={boomWidth} strokeLinecap="round" />
+      <Circle cx={hubDot.cx} cy={hubDot.cy} r={hubDot.r} fill={color.booms} />
     </Svg>
   );
 }

@@ -1,6 +1,7 @@
-import { DetailedCellError, ErrorType, HyperFormula, type CellValue, type RawCellContent } from 'hyperformula';
-import { rowError, type EngineError } from '@/shared/engine/errors';
+import { DetailedCellError, HyperFormula, type CellValue, type RawCellContent } from 'hyperformula';
+import { gridError, rowError, type EngineError } from '@/shared/engine/errors';
 import type { FormulaNode } from '@/shared/engine/formula-parser';
+import { registerOwnFunctions } from '@/shared/engine/hyperformula-functions';
 import type { AnalysedRow } from '@/shared/engine/sheet-model';
 
 /**
@@ -73,26 +74,7 @@ export function cellContent(row: AnalysedRow, onCycle: boolean, indexOf: (key: s
 /** A HyperFormula result as an SI number, or the error of the row that holds it. */
 export function readCell(key: string, value: CellValue): number | EngineError {
   if (typeof value === 'number') return value;
-  if (value instanceof DetailedCellError) {
-    switch (value.type) {
-      case ErrorType.DIV_BY_ZERO:
-        return rowError(key, 'division_by_zero', 'division by zero');
-      case ErrorType.NUM:
-        return rowError(
-          key,
-          'invalid_value',
-          'the result is not a finite number (a root or logarithm of a negative number, or an overflow)',
-        );
-      case ErrorType.CYCLE:
-        return rowError(key, 'cycle', 'the formula refers to itself');
-      default:
-        return rowError(
-          key,
-          'invalid_value',
-          `the formula cannot be evaluated (${value.type}${value.message ? `: ${value.message}` : ''})`,
-        );
-    }
-  }
+  if (value instanceof DetailedCellError) return gridError(key, value.type, value.message);
   if (typeof value === 'boolean') return rowError(key, 'invalid_value', 'the formula gives a logical value (TRUE/FALSE), not a number');
   if (value === null) return rowError(key, 'invalid_value', 'the row has no value');
   return rowError(key, 'invalid_value', 'the formula gives text, not a number');
@@ -100,6 +82,7 @@ export function readCell(key: string, value: CellValue): number | EngineError {
 
 /** Builds the HyperFormula workbook for the given cell contents. */
 export function buildWorkbook(columns: readonly (readonly [RawCellContent, RawCellContent])[]): HyperFormula {
+  registerOwnFunctions();
   return HyperFormula.buildFromArray(
     columns.map(([a, b]) => [a, b]),
     hyperFormulaConfig(columns.length),

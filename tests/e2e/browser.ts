@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import type * as Axe from 'axe-core';
 import { chromium, type Browser, type Page } from 'playwright-core';
 
 /** Where browser tests leave their screenshots (git-ignored). */
@@ -54,4 +55,29 @@ export function useBrowser(): () => Browser {
     if (browser === undefined) throw new Error('the browser is launched in beforeAll: use it inside a test');
     return browser;
   };
+}
+
+/** A violation as axe reports it, cut to what a failure message needs. */
+export interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: string[];
+}
+
+/** Runs axe-core on the page as it is and returns its violations (the page's context needs `bypassCSP`: axe comes in as a script of its own). */
+export async function axeViolations(page: Page): Promise<AxeViolation[]> {
+  await page.addScriptTag({ path: require.resolve('axe-core') });
+  return page.evaluate(async () => {
+    const { axe } = window as unknown as { axe: typeof Axe };
+    const result = await axe.run(document);
+    return result.violations.map((violation) => ({
+      id: violation.id,
+      impact: violation.impact ?? null,
+      help: violation.help,
+      nodes: violation.nodes
+        .slice(0, 5)
+        .map((node) => `${node.html.slice(0, 200)} (${(node.failureSummary ?? '').replace(/\s+/g, ' ').slice(0, 200)})`),
+    }));
+  });
 }

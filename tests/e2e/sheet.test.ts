@@ -1,11 +1,10 @@
 import path from 'node:path';
-import type * as Axe from 'axe-core';
 import type { Browser, BrowserContext, Page, Route } from 'playwright-core';
 import { z } from 'zod';
 import { craftListSchema } from '@/shared/schemas/crafts';
 import { revisionDetailSchema, type RevisionParameter } from '@/shared/schemas/revisions';
 import { testStack } from '../server/helpers/test-app';
-import { artifactsDir, signInAs, useBrowser, viewports } from './browser';
+import { artifactsDir, axeViolations, signInAs, useBrowser, viewports } from './browser';
 
 const describeInBrowser = testStack.TEST_SKIP_BROWSER === '1' ? describe.skip : describe;
 const appUrl = testStack.TEST_APP_URL;
@@ -264,28 +263,3 @@ describeInBrowser('the craft sheet in the browser', () => {
     await amara.context.close();
   }
 });
-
-/** A violation as axe reports it, cut to what a failure message needs. */
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: string[];
-}
-
-/** Runs axe-core on the page as it is and returns its violations. */
-async function axeViolations(page: Page): Promise<AxeViolation[]> {
-  await page.addScriptTag({ path: require.resolve('axe-core') });
-  return page.evaluate(async () => {
-    const { axe } = window as unknown as { axe: typeof Axe };
-    const result = await axe.run(document);
-    return result.violations.map((violation) => ({
-      id: violation.id,
-      impact: violation.impact ?? null,
-      help: violation.help,
-      nodes: violation.nodes
-        .slice(0, 5)
-        .map((node) => `${node.html.slice(0, 200)} (${(node.failureSummary ?? '').replace(/\s+/g, ' ').slice(0, 200)})`),
-    }));
-  });
-}

@@ -8,7 +8,7 @@ import { axisTitle, chartNumber, lineColor } from './chart-text';
 
 /**
  * Characteristic acceleration versus sail side for the sheet's film thickness, half and double it: the trade
- * chart of the what-if screen and of a craft's plots. `testID` names the card; its chart and problems add
+ * chart of the sandbox screen and of a craft's plots. `testID` names the card; its chart and problems add
  * `-chart` and `-problems`.
  */
 export function FilmThicknessAnalysis({ sheet, testID }: { sheet: Sheet; testID: string }) {

@@ -52,10 +52,10 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
   const output = chosenOutput;
   if (input === undefined || output === undefined) {
     return (
-      <AnalysisCard {...card} testID="analysis-goal-seek">
+      <AnalysisCard {...card} testID="analysis-size-to-target">
         <AnalysisProblems
           problems={['This sheet has no row its template offers to size, or no figure to size it for.']}
-          testID="goal-seek-result"
+          testID="size-to-target-result"
         />
       </AnalysisCard>
     );
@@ -65,8 +65,8 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
   const outputUnit = unitOf(sheet, output);
 
   return (
-    <AnalysisCard {...card} testID="analysis-goal-seek">
-      <ChoiceChips label="Find" choices={inputs} value={input} onChange={chooseInput} testID="goal-seek-input" />
+    <AnalysisCard {...card} testID="analysis-size-to-target">
+      <ChoiceChips label="Find" choices={inputs} value={input} onChange={chooseInput} testID="size-to-target-input" />
       <ChoiceChips
         label="So that"
         choices={outputs}
@@ -75,7 +75,7 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
           setOutput(key);
           setAnswer(undefined);
         }}
-        testID="goal-seek-output"
+        testID="size-to-target-output"
       />
       <View style={styles.fields}>
         <View style={styles.field}>
@@ -85,7 +85,7 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
             onChangeText={setTarget}
             onSubmitEditing={run}
             autoCapitalize="none"
-            testID="goal-seek-target"
+            testID="size-to-target-target"
           />
         </View>
         <View style={styles.field}>
@@ -93,7 +93,7 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
             label={withUnit('Search from', inputUnit)}
             value={range.from}
             onChangeText={(from) => setRange({ ...range, from })}
-            testID="goal-seek-from"
+            testID="size-to-target-from"
           />
         </View>
         <View style={styles.field}>
@@ -101,11 +101,11 @@ export function TargetSolveAnalysis({ sheet, onApply }: TargetSolveAnalysisProps
             label={withUnit('to', inputUnit)}
             value={range.to}
             onChangeText={(to) => setRange({ ...range, to })}
-            testID="goal-seek-to"
+            testID="size-to-target-to"
           />
         </View>
       </View>
-      <Button label="Solve" onPress={run} testID="goal-seek-run" style={styles.run} />
+      <Button label="Solve" onPress={run} testID="size-to-target-run" style={styles.run} />
       {answer?.sheet === sheet ? <TargetSolveAnswer answer={answer.result} onApply={onApply} /> : null}
     </AnalysisCard>
   );
@@ -118,18 +118,18 @@ function TargetSolveAnswer({
   answer: AnalysisResult<TargetSolveResult>;
   onApply: TargetSolveAnalysisProps['onApply'];
 }) {
-  if (!answer.ok) return <AnalysisProblems problems={answer.errors.map((error) => error.message)} testID="goal-seek-result" />;
+  if (!answer.ok) return <AnalysisProblems problems={answer.errors.map((error) => error.message)} testID="size-to-target-result" />;
   const { result } = answer;
   if (result.status === 'no_solution') {
     return (
-      <AppText variant="error" role="alert" testID="goal-seek-result">
+      <AppText variant="error" role="alert" testID="size-to-target-result">
         {result.message}
       </AppText>
     );
   }
   return (
     <View style={styles.answer} aria-live="polite">
-      <View testID="goal-seek-result">
+      <View testID="size-to-target-result">
         <AppText style={styles.solved}>
           {result.input.key} = {formatQuantity(result.input.value, result.input.unit, 6)}
         </AppText>
@@ -141,7 +141,7 @@ function TargetSolveAnswer({
         label={`Set ${result.input.key} on the sheet`}
         tone="secondary"
         onPress={() => onApply(result.input.key, editText(result.input.value))}
-        testID="goal-seek-apply"
+        testID="size-to-target-apply"
       />
     </View>
   );

@@ -18,7 +18,7 @@ function renderShell(width: number, showPeople: boolean) {
     {
       _layout: () => <AppNavigation showPeople={showPeople} />,
       'crafts/index': () => <AppText>crafts page</AppText>,
-      'what-if': () => <AppText>what-if page</AppText>,
+      sandbox: () => <AppText>sandbox page</AppText>,
       people: () => <AppText>people page</AppText>,
       account: () => <AppText>account page</AppText>,
     },

@@ -167,7 +167,7 @@ describe('evaluateSheet', () => {
     const result = evaluateSheet(
       sheetOf({ key: 'density', label: 'd', subsystem: 's', unit: 'g/cm^3', material: { id: 'polyimide', property: 'density' } }),
     );
-    // DuPont Kapton HN datasheet (from memory), as the materials library gives it: 1420 kg/m^3.
+    // Polyimide film datasheet (from memory), as the materials library gives it: 1420 kg/m^3.
     expect(result.values.density?.value).toBeCloseTo(1.42, 12);
     const missing = evaluateSheet(
       sheetOf({ key: 'density', label: 'd', subsystem: 's', unit: 'kg/m^3', material: { id: 'unobtainium', property: 'density' } }),

@@ -32,11 +32,11 @@ describe('sheetSchema', () => {
     ]);
   });
 
-  it('refuses keys that are not snake_case or read as cell references', () => {
+  it('refuses keys that are not snake_case or look like grid addresses', () => {
     expect(issues([{ ...row, key: 'boom2', value: 1 }])).toEqual([
-      'parameters.0.key: key "boom2" reads as an A1 cell reference (letters then digits)',
+      'parameters.0.key: key "boom2" looks like a grid address (letters then digits): put an underscore before the digits',
     ]);
-    expect(issues([{ ...row, key: 'rc', value: 1 }])).toEqual(['parameters.0.key: key "rc" reads as an R1C1 cell reference']);
+    expect(issues([{ ...row, key: 'rc', value: 1 }])).toEqual(['parameters.0.key: key "rc" looks like a grid address (r and c with row and column numbers): choose a longer name']);
     expect(issues([{ ...row, key: 'SailSide', value: 1 }])[0]).toMatch(/^parameters\.0\.key: key "SailSide" must be snake_case/);
   });
 

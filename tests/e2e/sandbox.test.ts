@@ -5,11 +5,11 @@ import { artifactsDir, launchBrowser, signInAs, viewports } from './browser';
 
 const describeInBrowser = testStack.TEST_SKIP_BROWSER === '1' ? describe.skip : describe;
 
-async function signInAndOpenWhatIf(page: Page) {
+async function signInAndOpenSandbox(page: Page) {
   await signInAs(page, testStack.TEST_APP_URL, 'demo-amara');
-  await page.getByTestId('nav-what-if').click();
-  await page.waitForURL(/\/what-if$/);
-  await page.getByTestId('what-if-screen').waitFor();
+  await page.getByTestId('nav-sandbox').click();
+  await page.waitForURL(/\/sandbox$/);
+  await page.getByTestId('sandbox-screen').waitFor();
 }
 
 function sailArea(page: Page): Promise<string> {
@@ -17,14 +17,14 @@ function sailArea(page: Page): Promise<string> {
 }
 
 /** Opens the sandbox in a fresh Chromium at a viewport, runs the steps, and checks the page threw nothing. */
-async function onWhatIf(viewport: (typeof viewports)[number], steps: (page: Page) => Promise<void>) {
+async function onSandbox(viewport: (typeof viewports)[number], steps: (page: Page) => Promise<void>) {
   const browser = await launchBrowser();
   try {
     const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
     const page = await context.newPage();
     const problems: string[] = [];
     page.on('pageerror', (error) => problems.push(error.message));
-    await signInAndOpenWhatIf(page);
+    await signInAndOpenSandbox(page);
     await steps(page);
     expect(problems).toEqual([]);
   } finally {
@@ -32,15 +32,15 @@ async function onWhatIf(viewport: (typeof viewports)[number], steps: (page: Page
   }
 }
 
-describeInBrowser('what-if sizing in the browser', () => {
+describeInBrowser('the sizing sandbox in the browser', () => {
   it.each(viewports)(
     'recomputes the sail area from an edited side and undoes it at $width x $height',
     (viewport) =>
-      onWhatIf(viewport, async (page) => {
+      onSandbox(viewport, async (page) => {
         expect(await page.title()).toBe('Sizing sandbox · Trimsheet');
         // Geometry: the template's 40 m square has an area of 1600 m^2.
         expect(await sailArea(page)).toContain('1600 m²');
-        await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}-start.png`) });
+        await page.screenshot({ path: path.join(artifactsDir, `sandbox-${viewport.name}-start.png`) });
 
         const side = page.getByTestId('param-input-sail_side');
         await side.fill('60 m');
@@ -57,7 +57,7 @@ describeInBrowser('what-if sizing in the browser', () => {
           .waitFor();
         expect(await sailArea(page)).toContain('3600 m²');
         await page.getByTestId('param-sail_side').evaluate((row) => row.scrollIntoView({ block: 'center' }));
-        await page.screenshot({ path: path.join(artifactsDir, `what-if-${viewport.name}.png`) });
+        await page.screenshot({ path: path.join(artifactsDir, `sandbox-${viewport.name}.png`) });
 
         await page.getByTestId('undo').click();
         await page.getByTestId('param-sail_area').getByText('1600 m²').waitFor();
@@ -69,23 +69,23 @@ describeInBrowser('what-if sizing in the browser', () => {
   );
 
   it.each(viewports)(
-    'runs a solving for a target on the template and shows the analyses at $width x $height',
+    'solves for a target on the template and shows the analyses at $width x $height',
     (viewport) =>
-      onWhatIf(viewport, async (page) => {
-        const shot = (part: string) => page.screenshot({ path: path.join(artifactsDir, `what-if-analyses-${viewport.name}${part}.png`) });
+      onSandbox(viewport, async (page) => {
+        const shot = (part: string) => page.screenshot({ path: path.join(artifactsDir, `sandbox-analyses-${viewport.name}${part}.png`) });
         await page.getByTestId('analyses').waitFor();
         // McInnes 1999 ch. 2: ideal sail 35.26°; the template's optical model is close.
         expect(await page.getByTestId('best-transverse-cone-angle').innerText()).toMatch(/^35\.\d+°$/);
         await page.getByTestId('analysis-cone-sweep').scrollIntoViewIfNeeded();
         await shot('-sweep');
 
-        await page.getByTestId('goal-seek-target').fill('0.55 mm/s^2');
-        await page.getByTestId('goal-seek-run').click();
+        await page.getByTestId('size-to-target-target').fill('0.55 mm/s^2');
+        await page.getByTestId('size-to-target-run').click();
         await page
-          .getByTestId('goal-seek-result')
+          .getByTestId('size-to-target-result')
           .getByText(/sail_side = [\d.]+ m/)
           .waitFor();
-        await page.getByTestId('analysis-goal-seek').scrollIntoViewIfNeeded();
+        await page.getByTestId('analysis-size-to-target').scrollIntoViewIfNeeded();
         await shot('');
 
         await page.getByTestId('analysis-temperature').evaluate((card) => card.scrollIntoView({ block: 'start' }));
@@ -98,4 +98,10 @@ describeInBrowser('what-if sizing in the browser', () => {
       }),
     120_000,
   );
+
+  it('sends the old address /what-if to the sandbox', async () => {
+    const response = await fetch(`${testStack.TEST_APP_URL}/what-if`, { redirect: 'manual' });
+    expect(response.status).toBe(301);
+    expect(response.headers.get('location')).toBe('/sandbox');
+  });
 });

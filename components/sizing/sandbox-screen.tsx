@@ -18,11 +18,11 @@ function loadTemplate(): { ok: true; sheet: Sheet } | { ok: false; message: stri
 }
 
 /** The sizing sandbox: sizing on the standard square-sail template, live in the browser and never saved. */
-export function WhatIfScreen() {
+export function SandboxScreen() {
   // Read once: the workspace starts a new engine session whenever it is given a new sheet object.
   const [template] = useState(loadTemplate);
   return (
-    <View style={styles.root} testID="what-if-screen">
+    <View style={styles.root} testID="sandbox-screen">
       <Screen title={title} subtitle={subtitle}>
         {template.ok ? (
           <SizingWorkspace sheet={template.sheet} resetLabel="Reset to template" />
