@@ -1,4 +1,4 @@
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import helmet from 'helmet';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -7,16 +7,22 @@ import { createAuth } from './auth';
 import { bearerAuth, unlessBearer } from './auth/bearer';
 import type { Config } from './env';
 import { HttpError } from './http-error';
+import { jsonBody } from './middleware/body';
 import { apiNotFound, errorHandler } from './middleware/errors';
-import { requireUser } from './middleware/require-user';
+import { bySignedInPerson, rateLimit } from './middleware/rate-limit';
+import { isReadMethod, requireUser } from './middleware/require-user';
 import { accountRouter } from './routes/account';
+import { allowanceTablesRouter } from './routes/allowance-tables';
+import { attachmentsRouter } from './routes/attachments';
 import { craftsRouter } from './routes/crafts';
+import { exchangeRouter } from './routes/exchange';
 import { openApiDocument } from './openapi';
 import { notificationsRouter } from './routes/notifications';
 import { organisationRouter } from './routes/organisation';
 import { revisionControlRouter } from './routes/revision-control';
 import { sheetsRouter } from './routes/sheets';
 import { templatesRouter } from './routes/templates';
+import { uncertaintyRouter } from './routes/uncertainty';
 import type { Mailer } from './services/mailer';
 import type { SheetEvents } from './services/sheet-events';
 
@@ -47,14 +53,18 @@ export function createApp(deps: AppDeps): Express {
           'upgrade-insecure-requests': config.secureCookies ? [] : null,
         },
       },
+      // Over plain HTTP the header means nothing to a browser and would only mislead; sibling hosts are not ours to pin.
+      strictTransportSecurity: config.secureCookies ? { maxAge: 31_536_000, includeSubDomains: false } : false,
     }),
   );
-  app.use(express.json({ limit: '1mb' }));
+  app.use(permissionsPolicy);
 
   const auth = createAuth({ config, sequelize: deps.sequelize });
   // A script's access token signs in one request; browsers use the session, its cookies and CSRF tokens, all
   // passed over in one step for a token's request. Only the API reads either: the web app's files and pages
   // are the same for everyone, so they cost no lookup in PostgreSQL.
+  // Every API answer may carry someone's data (and those that do not lose nothing): no cache keeps any of them.
+  app.use('/api', noStore);
   app.use('/api', bearerAuth);
   app.use('/api', unlessBearer(auth.browser));
 
@@ -72,12 +82,24 @@ export function createApp(deps: AppDeps): Express {
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApi);
   });
-  app.use('/api/auth', auth.router);
-  app.use('/api/account', requireUser, accountRouter(deps));
-  app.use('/api/notifications', requireUser, notificationsRouter(deps));
-  app.use('/api/templates', requireUser, templatesRouter());
-  app.use('/api/crafts', requireUser, craftsRouter(deps), sheetsRouter(deps), revisionControlRouter(deps));
-  app.use('/api/organisation', requireUser, organisationRouter(deps));
+  app.use('/api/auth', jsonBody('auth'), auth.router);
+
+  // Below this line the API is for signed-in people only, checked before anything else: an anonymous request is
+  // 401 without its body being read. Then each person's limit on changes, then the JSON body, parsed only now and
+  // up to the size that part of the API takes (most specific path first; multipart uploads pass to their routes'
+  // multer). A new router needs only its mount line, `app.use('/api/…', someRouter(deps))`, among these.
+  app.use('/api', requireUser, limitWrites(deps.sequelize, config));
+  app.use('/api/crafts/:craftId/revisions', jsonBody('sheet'));
+  app.use('/api', jsonBody('small'));
+  app.use('/api/account', accountRouter(deps));
+  app.use('/api/notifications', notificationsRouter(deps));
+  app.use('/api/templates', templatesRouter());
+  app.use('/api/crafts', craftsRouter(deps), sheetsRouter(deps), revisionControlRouter(deps));
+  app.use('/api/crafts', attachmentsRouter(deps));
+  app.use('/api/crafts', uncertaintyRouter());
+  app.use('/api/crafts', allowanceTablesRouter(deps));
+  app.use('/api/crafts', exchangeRouter(deps));
+  app.use('/api/organisation', organisationRouter(deps));
   app.use('/api', apiNotFound);
 
   serveWebApp(app, config.webDist);
@@ -85,10 +107,39 @@ export function createApp(deps: AppDeps): Express {
   return app;
 }
 
+/** Powerful browser features the app never uses, refused to it and to anything it might embed. */
+const permissionsPolicy: RequestHandler = (_req, res, next) => {
+  res.setHeader(
+    'Permissions-Policy',
+    'accelerometer=(), browsing-topics=(), camera=(), display-capture=(), geolocation=(), gyroscope=(), magnetometer=(), microphone=(), midi=(), payment=(), usb=()',
+  );
+  next();
+};
+
+const noStore: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};
+
+/** Changes per signed-in person per minute (any request but a read), counted in PostgreSQL across API processes. */
+function limitWrites(sequelize: Sequelize, config: Config): RequestHandler {
+  return rateLimit(sequelize, {
+    name: 'writes',
+    limit: config.writeRateLimit,
+    windowMs: 60_000,
+    what: 'changes',
+    key: (req) => (isReadMethod(req.method) ? undefined : bySignedInPerson(req)),
+  });
+}
+
 /** Serves the exported web app; client routes fall back to its index.html. */
 function serveWebApp(app: Express, webDist: string) {
   const indexHtml = path.join(webDist, 'index.html');
   app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+  // The sizing sandbox was once at /what-if: bookmarks of the old address land on it.
+  app.get('/what-if', (_req, res) => {
+    res.redirect(301, '/sandbox');
+  });
   app.get('/{*splat}', (_req, res) => {
     if (!fs.existsSync(indexHtml)) {
       res.status(503).type('text').send('The web app is not built yet: run `npm start`, which builds it.');

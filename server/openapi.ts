@@ -3,10 +3,19 @@ import { z } from 'zod';
 import { auditListSchema, auditQuerySchema } from '@/shared/schemas/audit';
 import { rowHistoryQuerySchema, rowHistorySchema } from '@/shared/schemas/history';
 import { apiErrorSchema } from '@/shared/schemas/common';
+import {
+  attachBodySchema,
+  attachmentParamsSchema,
+  attachmentSchema,
+  rowAttachmentParamsSchema,
+  rowAttachmentsSchema,
+} from '@/shared/schemas/attachments';
 import { compareQuerySchema, compareResponseSchema } from '@/shared/schemas/compare';
+import { acceptImportBodySchema, importParamsSchema, importPreviewSchema } from '@/shared/schemas/exchange';
 import { craftListSchema, craftParamsSchema, craftSchema, createCraftBodySchema, updateCraftBodySchema } from '@/shared/schemas/crafts';
 import { memberListSchema, memberParamsSchema, memberSchema, setMemberBodySchema } from '@/shared/schemas/members';
 import {
+  invitationParamsSchema,
   invitationSchema,
   inviteBodySchema,
   organisationResponseSchema,
@@ -35,12 +44,17 @@ import {
   subsystemSchema,
   updateParameterBodySchema,
 } from '@/shared/schemas/revisions';
-import { sessionResponseSchema } from '@/shared/schemas/session';
+import { linkedIdentityListSchema, linkIdentityBodySchema, linkIdentityStartSchema, sessionResponseSchema } from '@/shared/schemas/session';
 import { markReadBodySchema, mailPreferencesSchema, notificationListSchema } from '@/shared/schemas/notifications';
+import { sheetSchema } from '@/shared/schemas/sheet';
 import { templateListSchema } from '@/shared/schemas/templates';
 import { accessTokenListSchema, createdTokenSchema, createTokenBodySchema, tokenParamsSchema } from '@/shared/schemas/tokens';
+import { uncertaintyRequestSchema, uncertaintyResultSchema } from '@/shared/schemas/uncertainty';
+import { allowanceTableParamsSchema, allowanceTableResponseSchema, putAllowanceTableBodySchema } from '@/shared/schemas/allowance-tables';
 
 type Method = RouteConfig['method'];
+
+const MEDIA_XLSX = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 /** One documented route: what it takes, what it answers, and the error statuses it can give. */
 interface DocumentedRoute {
@@ -50,6 +64,8 @@ interface DocumentedRoute {
   params?: z.ZodObject;
   query?: z.ZodObject;
   body?: z.ZodType;
+  /** The body's media type when it is not JSON (an upload: multipart/form-data). */
+  bodyContentType?: string;
   ok: { status: number; schema?: z.ZodType; description?: string; contentType?: string };
   errors: number[];
   /** Reachable with a personal access token (Bearer) as well as a session. */
@@ -62,6 +78,9 @@ const errorText: Record<number, string> = {
   403: 'Not allowed for this person, role or token (the message says why)',
   404: 'Not found, or not visible to this person',
   409: 'Conflicts with the current state (version_conflict carries `details.current`)',
+  410: 'Gone: the thing has expired (an import preview after 24 hours: import_expired)',
+  413: 'The uploaded file is larger than the limit (file_too_large)',
+  415: 'The uploaded file is of a type not accepted here, judged by its content (unsupported_file_type, file_type_mismatch)',
   502: 'The mail could not be sent',
   503: 'The database does not answer',
 };
@@ -164,6 +183,22 @@ export const documentedRoutes: DocumentedRoute[] = [
     summary: 'Turns kinds of notification mail on or off',
     body: mailPreferencesSchema,
     ok: { status: 200, schema: mailPreferencesSchema },
+    errors: [400, 401, 403],
+  },
+  {
+    method: 'get',
+    path: '/api/account/identities',
+    summary: 'The ways the signed-in person signs in: their linked providers',
+    ok: { status: 200, schema: linkedIdentityListSchema },
+    errors: [401, 403],
+  },
+  {
+    method: 'post',
+    path: '/api/account/identities',
+    summary:
+      "Asks to link another provider's sign-in to the signed-in person: the browser then goes to `startUrl`, signs in at the provider, and its callback links that identity (never one linked to someone else) and returns to /account?link=<result>&provider=<provider>",
+    body: linkIdentityBodySchema,
+    ok: { status: 200, schema: linkIdentityStartSchema },
     errors: [400, 401, 403],
   },
   {
@@ -334,6 +369,91 @@ export const documentedRoutes: DocumentedRoute[] = [
   },
   {
     method: 'get',
+    path: `${revision}/export.xlsx`,
+    summary:
+      "The revision as a workbook download: a cover (craft, revision, who exported it and when, the caution), the Parameters sheet with live formulas over one defined name per key (computing in SI units), the mass budget with live allowance and predicted-mass formulas, and the allowance table. Whoever views the craft; partners get the rows shared with them",
+    params: revisionParamsSchema,
+    ok: { status: 200, schema: z.string().meta({ format: 'binary' }), contentType: MEDIA_XLSX },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${revision}/export.json`,
+    summary: 'The revision as the sheet JSON (the documented sheet format `npm run evaluate` reads) download. Whoever views the craft; partners get the rows shared with them',
+    params: revisionParamsSchema,
+    ok: { status: 200, schema: sheetSchema },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${revision}/export.csv`,
+    summary:
+      "The revision's computed values as CSV (key, label, subsystem, value, unit, error); cells that start with = + - @ get a leading quote. Whoever views the craft; partners get the rows shared with them",
+    params: revisionParamsSchema,
+    ok: { status: 200, schema: z.string(), contentType: 'text/csv' },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${revision}/imports`,
+    summary:
+      'Reads a workbook in Trimsheet\'s layout (multipart `file`, an .xlsx of at most 8 MB, unpacking to at most 64 MB, at most 20,000 rows a sheet, no macros, no links to other files, only functions Trimsheet knows) against the revision and answers its preview: rows changed, added and removed, problems and ignored rows, each naming its cell. Nothing of the sheet is written. Partners, subsystem owners, systems and chief engineers; partners change only rows of the subsystems shared with them',
+    params: revisionParamsSchema,
+    body: z.object({ file: z.string().meta({ format: 'binary' }) }),
+    bodyContentType: 'multipart/form-data',
+    ok: { status: 201, schema: importPreviewSchema },
+    errors: [400, 401, 403, 404, 413, 415],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${craft}/imports/{importId}/accept`,
+    summary:
+      "Accepts an import's preview: one transaction opens a study of the revision as it is now (owned by the importer) with the preview's changes. The importer only, once (409 already_accepted), within 24 hours (410 import_expired); 409 import_stale when a row it changes moved on since the preview",
+    params: importParamsSchema,
+    body: acceptImportBodySchema,
+    ok: { status: 201, schema: revisionSchema },
+    errors: [400, 401, 403, 404, 409, 410],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${craft}/allowance-table`,
+    summary:
+      "The craft's own allowance table (null while it has none): the growth allowance of each maturity and category and the required system margin, which the mass budget of every sheet of the craft reads in place of the preset the sheet names. Whoever views the craft",
+    params: allowanceTableParamsSchema,
+    ok: { status: 200, schema: allowanceTableResponseSchema },
+    errors: [401, 404],
+    token: true,
+  },
+  {
+    method: 'put',
+    path: `${craft}/allowance-table`,
+    summary:
+      "Saves the craft's own allowance table (systems and chief engineers). Every cell is an allowance fraction in [0, 1]; every maturity has a row with a cell for every category; the system margin is a percentage in [0, 100) of the allocation or of the predicted mass (`systemMarginBasis`). A 400 names each cell or field at fault",
+    params: allowanceTableParamsSchema,
+    body: putAllowanceTableBodySchema,
+    ok: { status: 200, schema: allowanceTableResponseSchema },
+    errors: [400, 401, 403, 404],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${revision}/uncertainty`,
+    summary:
+      'An uncertainty (Monte Carlo) study of the revision: inputs given a uniform, triangular or normal distribution, at most 100,000 samples from a seeded generator; percentiles, histograms and the probability of meeting each requirement (the sheet\'s own and those asked). Whoever views the craft; partners vary and read the rows shared with them',
+    params: revisionParamsSchema,
+    body: uncertaintyRequestSchema,
+    ok: { status: 200, schema: uncertaintyResultSchema },
+    // A POST: an access token needs the read-write scope (403 token_scope otherwise).
+    errors: [400, 401, 403, 404],
+    token: true,
+  },
+  {
+    method: 'get',
     path: `${revision}/history`,
     summary:
       "A revision's row changes, newest first, at most 200 (`truncated` when there were more): who, when, the row before and after, and the revision it was made in (a baseline's are its draft's up to the lock; a study's start with its source's). `key` narrows to one row and its earlier keys; partners get the changes of rows they may see",
@@ -424,6 +544,48 @@ export const documentedRoutes: DocumentedRoute[] = [
   },
   {
     method: 'get',
+    path: `${revision}/parameters/{key}/attachments`,
+    summary:
+      "A row's evidence (datasheets, weighing and test reports), newest first, without the bytes: name, sniffed type, size, kind, who and when, whether the caller may remove each, and `attachRefusal` when the caller may not attach. Whoever may view the row",
+    params: parameterParamsSchema,
+    ok: { status: 200, schema: rowAttachmentsSchema },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'post',
+    path: `${revision}/parameters/{key}/attachments`,
+    summary:
+      'Attaches a file to a row (multipart: `file` and `kind`), at most 10 MB; PDF, PNG, JPEG, .xlsx, .ods or plain text (CSV included), the type judged by the content. Whoever may edit the row, and partners on rows shared with them; never in a locked revision',
+    params: parameterParamsSchema,
+    body: attachBodySchema.extend({ file: z.string().meta({ format: 'binary' }) }),
+    bodyContentType: 'multipart/form-data',
+    ok: { status: 201, schema: attachmentSchema },
+    errors: [400, 401, 403, 404, 413, 415],
+    token: true,
+  },
+  {
+    method: 'delete',
+    path: `${revision}/parameters/{key}/attachments/{attachmentId}`,
+    summary:
+      'Removes a file from a row (copies of the revision keep theirs). Whoever attached it, the owner of the subsystem, systems and chief engineers; 409 evidence_required for the last weighing report of a measured row',
+    params: rowAttachmentParamsSchema,
+    ok: { status: 204, description: 'Removed' },
+    errors: [400, 401, 403, 404, 409],
+    token: true,
+  },
+  {
+    method: 'get',
+    path: `${craft}/attachments/{attachmentId}`,
+    summary:
+      'Downloads an attached file (Content-Disposition: attachment, X-Content-Type-Options: nosniff, the type sniffed at upload). Whoever may view a row it is attached to',
+    params: attachmentParamsSchema,
+    ok: { status: 200, schema: z.string().meta({ format: 'binary' }), contentType: 'application/octet-stream' },
+    errors: [400, 401, 404],
+    token: true,
+  },
+  {
+    method: 'get',
     path: '/api/organisation',
     summary: "The person's organisation and its people",
     ok: { status: 200, schema: organisationResponseSchema },
@@ -433,10 +595,19 @@ export const documentedRoutes: DocumentedRoute[] = [
   {
     method: 'post',
     path: '/api/organisation/invitations',
-    summary: 'Invites a person by e-mail',
+    summary:
+      'Invites a person by e-mail (at most 254 characters), for either sign-in or one provider (which may also link that provider for someone already in the organisation); organisation admins, at most 20 an hour each and 60 an hour per organisation (429 rate_limited)',
     body: inviteBodySchema,
     ok: { status: 201, schema: invitationSchema },
-    errors: [400, 401, 403, 409, 502],
+    errors: [400, 401, 403, 409, 429, 502],
+  },
+  {
+    method: 'delete',
+    path: '/api/organisation/invitations/{invitationId}',
+    summary: 'Withdraws a pending invitation, which can then no longer be accepted; 409 invitation_accepted once accepted',
+    params: invitationParamsSchema,
+    ok: { status: 204, description: 'Withdrawn' },
+    errors: [400, 401, 403, 404, 409],
   },
   {
     method: 'put',
@@ -464,7 +635,7 @@ export function openApiDocument() {
       request: {
         ...(route.params ? { params: route.params } : {}),
         ...(route.query ? { query: route.query } : {}),
-        ...(route.body ? { body: json(route.body) } : {}),
+        ...(route.body ? { body: json(route.body, route.bodyContentType) } : {}),
       },
       responses: {
         [route.ok.status]: {

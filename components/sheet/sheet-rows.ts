@@ -1,5 +1,6 @@
 import { mayOnRow, whyNotOnRow, type Who } from '@/shared/access/permissions';
 import { findPreset } from '@/shared/budget/presets';
+import type { AllowancePreset } from '@/shared/budget/types';
 import type { RevisionDetail } from '@/shared/schemas/revisions';
 
 /** A subsystem's rows in sheet order, as the screen groups them. */
@@ -70,9 +71,12 @@ export function sheetReadOnlyReason(detail: RevisionDetail, who: Who): string | 
   return whyNotOnRow('editRow', who, { subsystemId: first.subsystemId, subsystemName: first.subsystem }, detail.revision);
 }
 
-/** The maturities of the revision's allowance preset, in the preset's order (none without a preset). */
-export function maturitiesOf(detail: RevisionDetail): { id: string; label: string }[] {
-  const preset = detail.sheet.budget === undefined ? undefined : findPreset(detail.sheet.budget.preset);
+/**
+ * The maturities a mass row may take: those of the craft's own allowance table when it has one, else of the
+ * revision's preset, in their order (none without either).
+ */
+export function maturitiesOf(detail: RevisionDetail, ownTable?: AllowancePreset | null): { id: string; label: string }[] {
+  const preset = ownTable ?? (detail.sheet.budget === undefined ? undefined : findPreset(detail.sheet.budget.preset));
   return (preset?.maturities ?? []).map((maturity) => ({ id: maturity.id as string, label: maturity.label }));
 }
 

@@ -1,7 +1,9 @@
 import { useEffect, useMemo, useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
 import { ScrollView, StyleSheet, useWindowDimensions, View } from 'react-native';
 import { formatQuantity } from '@/shared/format/quantity';
 import { SizingCaution } from '@/components/sizing/sizing-caution';
+import { UncertaintyPanel } from '@/components/sizing/uncertainty/uncertainty-panel';
 import { useFollowingSheetSession } from '@/components/sizing/use-sheet-session';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -9,11 +11,13 @@ import { ChoiceChips } from '@/components/ui/choice-chips';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, sideNavBreakpoint, space } from '@/components/ui/theme';
-import { mayOnAnyRow } from '@/shared/access/permissions';
+import { mayOnAnyRow, mayOnCraft } from '@/shared/access/permissions';
+import { withAllowanceTable } from '@/shared/budget/craft-table';
 import type { Craft } from '@/shared/schemas/crafts';
 import type { RevisionDetail } from '@/shared/schemas/revisions';
 import { AddRowForm } from './add-row-form';
 import { MassBudgetView } from './budget/mass-budget-view';
+import { allowanceTableOptions } from './budget/queries';
 import { LiveStatusBadge } from './live-status';
 import type { LiveStatus } from './queries';
 import { toSheet } from './revision-cache';
@@ -28,13 +32,14 @@ import { SheetSummary } from './summary/sheet-summary';
 import { SubsystemsPanel } from './subsystems-panel';
 import { useSheetEditor } from './use-sheet-editor';
 
-type SheetView = 'rows' | 'budget' | 'plots' | 'sizing';
+type SheetView = 'rows' | 'budget' | 'plots' | 'sizing' | 'uncertainty';
 
 const views: readonly { value: SheetView; label: string }[] = [
   { value: 'rows', label: 'Rows' },
   { value: 'budget', label: 'Mass budget' },
   { value: 'plots', label: 'Plots' },
   { value: 'sizing', label: 'Sizing' },
+  { value: 'uncertainty', label: 'Uncertainty' },
 ];
 
 export type SheetWorkspaceProps = {
@@ -87,7 +92,9 @@ function HeadlineFigures({ figures }: { figures: NonNullable<RevisionDetail['hea
  * edit sheets (phone), saving, undo and redo, others' edits as they arrive, and the panels on the results.
  */
 export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin, userId }: SheetWorkspaceProps) {
-  const sheet = useMemo(() => toSheet(detail), [detail]);
+  // The budget rolls up with the craft's own allowance table once it has one (the sheet's preset until then).
+  const allowanceTable = useQuery(allowanceTableOptions(craft.id)).data?.table;
+  const sheet = useMemo(() => withAllowanceTable(toSheet(detail), allowanceTable), [detail, allowanceTable]);
   const live = useFollowingSheetSession(sheet);
   const editor = useSheetEditor(craft.id, detail, live);
   const { follow } = live;
@@ -105,7 +112,7 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin, userId }
   const access = useMemo(() => rowAccess(detail, who), [detail, who]);
   const readOnly = useMemo(() => sheetReadOnlyReason(detail, who), [detail, who]);
   const groups = useStableGroups(detail);
-  const maturities = useMemo(() => maturitiesOf(detail), [detail]);
+  const maturities = useMemo(() => maturitiesOf(detail, allowanceTable), [detail, allowanceTable]);
   const maturityLabel = useMemo(() => maturityLabeller(maturities), [maturities]);
   const canManage = mayOnAnyRow('manageRow', who, detail.revision);
   const canEdit = mayOnAnyRow('editRow', who, detail.revision);
@@ -153,9 +160,10 @@ export function SheetWorkspace({ craft, detail, liveStatus, isOrgAdmin, userId }
     );
 
   const results = {
-    budget: () => <MassBudgetView snapshot={snapshot} />,
+    budget: () => <MassBudgetView snapshot={snapshot} craftId={craft.id} canEditTable={mayOnCraft('editAllowanceTable', who)} />,
     plots: () => <SheetPlots snapshot={snapshot} />,
     sizing: () => <SheetSizing snapshot={snapshot} canApply={canEdit} onApply={editor.actions.commit} />,
+    uncertainty: () => <UncertaintyPanel snapshot={snapshot} />,
   };
   const panel = view === 'rows' ? rowsView : results[view]();
 

@@ -45,6 +45,13 @@ function buildWebApp(skip: boolean) {
     env: { ...inheritedEnvironment(), EXPO_OFFLINE: '1', CI: '1' },
   });
   if (result.status !== 0) throw new Error('the web build failed');
+  // Metro bundles no Web Worker: the uncertainty study's worker is bundled on its own, beside the app's files.
+  const worker = spawnSync(
+    bin('esbuild'),
+    ['components/sizing/uncertainty/uncertainty-worker.ts', '--bundle', '--minify', '--target=es2020', '--outfile=dist/uncertainty-worker.js'],
+    { cwd: root, stdio: 'inherit', env: inheritedEnvironment() },
+  );
+  if (worker.status !== 0) throw new Error('the uncertainty worker build failed');
 }
 
 function startServer(env: Environment): Promise<ChildProcess> {
@@ -157,6 +164,7 @@ async function test(jestArgs: string[]) {
   const testEnv = appEnvironment(services, stack.TRIMSHEET_TEST_PORT, services.pg.url('trimsheet_e2e'), {
     NODE_ENV: 'test',
     SIGN_IN_RATE_LIMIT: '10000',
+    WRITE_RATE_LIMIT: '100000',
     TEST_ADMIN_DATABASE_URL: admin,
     TEST_TEMPLATE_DATABASE: 'trimsheet_template',
     TEST_APP_URL: appUrl,

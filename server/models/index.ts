@@ -1,7 +1,10 @@
 import type { Sequelize } from 'sequelize';
 import { AccessToken } from './access-token';
+import { AllowanceTable } from './allowance-table';
+import { Attachment } from './attachment';
 import { Craft } from './craft';
 import { Identity } from './identity';
+import { Import } from './import';
 import { Invitation } from './invitation';
 import { Membership } from './membership';
 import { Organisation } from './organisation';
@@ -9,11 +12,11 @@ import { Revision } from './revision';
 import { Subsystem } from './subsystem';
 import { User } from './user';
 
-export { AccessToken, Craft, Identity, Invitation, Membership, Organisation, Revision, Subsystem, User };
+export { AccessToken, AllowanceTable, Attachment, Craft, Identity, Import, Invitation, Membership, Organisation, Revision, Subsystem, User };
 
 /** Registers every model on the connection and sets up all associations, in this one place. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [Organisation, User, Identity, Craft, Membership, Invitation, Subsystem, Revision, AccessToken])
+  for (const model of [Organisation, User, Identity, Craft, Membership, Invitation, Subsystem, Revision, AccessToken, Attachment, Import, AllowanceTable])
     model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' });
@@ -36,4 +39,11 @@ export function initModels(sequelize: Sequelize): void {
   Revision.belongsTo(User, { foreignKey: 'lockedById', as: 'lockedBy' });
   User.hasMany(AccessToken, { foreignKey: 'userId', as: 'accessTokens' });
   AccessToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Import.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
+  Import.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Craft.hasMany(Import, { foreignKey: 'craftId', as: 'imports' });
+  Craft.hasMany(Attachment, { foreignKey: 'craftId', as: 'attachments' });
+  Attachment.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy' });
+  Craft.hasOne(AllowanceTable, { foreignKey: 'craftId', as: 'allowanceTable' });
+  AllowanceTable.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
 }

@@ -1,4 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
+import { withAllowanceTable } from '@/shared/budget/craft-table';
 import { mayOnRow, standingOf, whyNotOnRow, type RevisionStanding, type RowAction } from '@/shared/access/permissions';
 import { evaluateSheet, parseUnit, valueInRowUnit, type EngineError, type EngineErrorCode } from '@/shared/engine';
 import { parseFormula, referencedKeys } from '@/shared/engine/formula-parser';
@@ -17,9 +18,11 @@ import {
   type RowChange,
   type StoredRow,
 } from '../models/sheet-rows';
+import { requireMeasuredEvidence } from './attachments';
 import { authorizeCraft, type CraftAccess } from './craft-access';
 import { notifyRowOwners } from './notifications';
 import { announce } from './sheet-events';
+import { craftAllowanceTable } from './allowance-tables';
 import { selectRevision, selectSubsystems, sheetHeaderOf, toRevisionParameter, type SubsystemRecord } from './sheet-store';
 
 /** Engine errors a write may not introduce: the row (or a row it breaks) would not mean anything. */
@@ -81,14 +84,15 @@ async function writeRevision<T>(
       user,
       who,
       standing: standingOf(revision),
-      header: sheetHeaderOf(revision),
+      // The craft's own allowance table decides which maturities and categories a mass row may name.
+      header: withAllowanceTable(sheetHeaderOf(revision), await craftAllowanceTable(craftId, transaction)),
       rows,
       subsystems,
     };
     const outcome = await work(context);
     if (outcome.changes.length === 0) return outcome.result;
     await recordChanges(sequelize, revisionId, outcome.changes, user.id, transaction);
-    // Owners hear of changes to their rows in the working draft; a study is a what-if of its own.
+    // Owners hear of changes to their rows in the working draft; a study is a trial of its own.
     if (revision.kind === 'draft') {
       await notifyRowOwners(sequelize, transaction, { craftId, actor: user, changes: outcome.changes, subsystemOf: outcome.subsystemOf });
     }
@@ -307,6 +311,13 @@ export async function updateParameter(
       next.key = renamed;
     }
     next = checkParameter(next, computedField(body));
+    await requireMeasuredEvidence(context.sequelize, context.transaction, {
+      parameterId: row.id,
+      key: next.key,
+      maturityBefore: before.mass?.maturity,
+      maturityAfter: next.mass?.maturity,
+      field: 'body.mass.maturity',
+    });
 
     // Rows whose formulas use the renamed row, rewritten to the new key.
     const rewritten = new Map<string, Parameter>();
@@ -409,6 +420,13 @@ export async function createParameter(
         { path: 'body.parameter.key', message: 'is used by another row' },
       ]);
     }
+    await requireMeasuredEvidence(context.sequelize, context.transaction, {
+      parameterId: null,
+      key: parameter.key,
+      maturityBefore: undefined,
+      maturityAfter: parameter.mass?.maturity,
+      field: 'body.parameter.mass.maturity',
+    });
     const current = context.rows.map(toParameter);
     refuseNewErrors(withSheet(context, current), withSheet(context, [...current, parameter]), 'body.parameter');
 

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { withAllowanceTable } from '@/shared/budget/craft-table';
 import { headlineFigures, sheetMassBudget } from '@/shared/analyses';
 import { SIZING_CAUTION } from '@/shared/analyses/caution';
 import { evaluateSheet } from '@/shared/engine';
@@ -11,6 +12,7 @@ import { HttpError } from '../http-error';
 import type { User } from '../models';
 import { readRevision } from './revisions';
 import { selectRevisions } from './sheet-store';
+import { craftAllowanceTable } from './allowance-tables';
 
 type RevisionRecord = Awaited<ReturnType<typeof selectRevisions>>[number];
 
@@ -72,7 +74,8 @@ export async function reviewPack(
   const readable = await readRevision(user, craftId, revisionId);
   if (!readable.seesEveryRow)
     throw new HttpError(403, 'forbidden', 'The review pack holds every row of the sheet; it is for those who read the whole sheet');
-  const sheet = readable.sheet();
+  const table = await craftAllowanceTable(craftId);
+  const sheet = withAllowanceTable(readable.sheet(), table);
   const evaluation = evaluateSheet(sheet);
   const budget = sheetMassBudget(sheet, evaluation);
   const { revision } = readable;
@@ -80,7 +83,7 @@ export async function reviewPack(
   let changes: ReviewPackContent['changes'];
   const previous = previousBaseline(await selectRevisions(sequelize, craftId), revision.id);
   if (previous !== undefined) {
-    const comparison = compareSheets(evaluatePair((await readRevision(user, craftId, previous.id)).sheet(), sheet));
+    const comparison = compareSheets(evaluatePair(withAllowanceTable((await readRevision(user, craftId, previous.id)).sheet(), table), sheet));
     const rows: ReviewChange[] = [
       ...comparison.rows.added.map((row) => ({ key: row.key, label: row.label, what: 'added', from: '—', to: definitionText(row) })),
       ...comparison.rows.removed.map((row) => ({ key: row.key, label: row.label, what: 'removed', from: definitionText(row), to: '—' })),

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { withAllowanceTable } from '@/shared/budget/craft-table';
 import { mayOnAnyRow, mayOnCraft, mayOnRow, standingOf, type RevisionStanding, type Who } from '@/shared/access/permissions';
 import { headlineFigures, sheetMassBudget } from '@/shared/analyses';
 import { evaluateSheet } from '@/shared/engine';
@@ -22,6 +23,7 @@ import {
   toRevisionDto,
   type SubsystemRecord,
 } from './sheet-store';
+import { craftAllowanceTable } from './allowance-tables';
 
 /** The craft's revisions (draft, baselines, studies), oldest first. */
 export async function listRevisions(sequelize: Sequelize, user: User, craftId: string): Promise<RevisionDto[]> {
@@ -120,7 +122,7 @@ export async function getRevisionEvaluation(user: User, craftId: string, revisio
   const readable = await readRevision(user, craftId, revisionId);
   const rows = readable.rows();
   const visibleRows = readable.visibleRows();
-  const sheet = readable.sheet();
+  const sheet = withAllowanceTable(readable.sheet(), await craftAllowanceTable(craftId));
   const evaluation = evaluateSheet(sheet);
   const budget = sheetMassBudget(sheet, evaluation);
   const response: EvaluationResponse = {

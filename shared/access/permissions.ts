@@ -21,9 +21,8 @@ export interface Who {
   readonly userId?: string;
 }
 
-/** Actions on the organisation itself. */
+/** Actions on the organisation itself (what of its directory a person sees: `directoryReach`). */
 export const organisationPermissions = {
-  viewDirectory: { orgAdmin: true, member: true },
   createCraft: { orgAdmin: true, member: false },
   invitePeople: { orgAdmin: true, member: false },
   setOrgAdmin: { orgAdmin: true, member: false },
@@ -52,14 +51,26 @@ export const craftPermissions = {
   viewWholeSheet: { roles: fullReaders, orgAdmin: true },
   /** Add, rename and remove subsystems. */
   manageSubsystems: { roles: engineers, orgAdmin: false },
+  /** Edit and save the craft's own allowance table, which the mass budget then reads in place of a preset. */
+  editAllowanceTable: { roles: engineers, orgAdmin: false },
   /** Lock the working draft as a baseline for a design review. */
   lockBaseline: { roles: ['chief_engineer'], orgAdmin: false },
   /** Open a study (a named branch) from any revision: whoever may edit rows. */
   openStudy: { roles: ['subsystem_owner', ...engineers], orgAdmin: false },
   /** Merge a study into the working draft. */
   promoteStudy: { roles: ['chief_engineer'], orgAdmin: false },
+  /**
+   * Import a workbook against a revision: a preview, then a study opened from it (which rows it may change is
+   * `importRow`).
+   */
+  importWorkbook: { roles: ['partner', 'subsystem_owner', ...engineers], orgAdmin: false },
   /** Read and export the craft's audit log (locks, promotions, role changes, tokens). */
   viewAudit: { roles: ['chief_engineer'], orgAdmin: true },
+  /**
+   * See the e-mail addresses and admin flags of people: of the craft's members, and (holding such a role on
+   * any craft) of the whole organisation. Partners, outside suppliers, see names only.
+   */
+  viewContacts: { roles: fullReaders, orgAdmin: true },
 } as const satisfies Record<string, { roles: readonly CraftRole[]; orgAdmin: boolean }>;
 
 export type CraftAction = keyof typeof craftPermissions;
@@ -69,6 +80,20 @@ export function mayOnCraft(action: CraftAction, who: Who): boolean {
   const rule = craftPermissions[action];
   if (who.isOrgAdmin && rule.orgAdmin) return true;
   return who.role !== null && (rule.roles as readonly CraftRole[]).includes(who.role);
+}
+
+/**
+ * What of the organisation's directory a person sees, from their admin flag and their roles on its crafts:
+ * everyone with e-mail addresses and admin flags ('organisation') for admins and whoever may see contacts on
+ * some craft; otherwise, for partners and people without a role yet, only the names of the members of their
+ * own crafts ('craft_members').
+ */
+export function directoryReach(who: {
+  readonly isOrgAdmin: boolean;
+  readonly roles: readonly CraftRole[];
+}): 'organisation' | 'craft_members' {
+  const seesContacts = who.isOrgAdmin || who.roles.some((role) => mayOnCraft('viewContacts', { role, isOrgAdmin: false }));
+  return seesContacts ? 'organisation' : 'craft_members';
 }
 
 /**
@@ -126,6 +151,29 @@ export const rowPermissions = {
     states: ['open'],
     inStudy: { reach: { systems_engineer: 'all', chief_engineer: 'all' }, owner: 'all' },
   },
+  /** Attach evidence (datasheets, weighing and test reports): who edits the row, and partners on the rows shared with them. */
+  attachEvidence: {
+    reach: { partner: 'named_subsystems', subsystem_owner: 'named_subsystems', systems_engineer: 'all', chief_engineer: 'all' },
+    orgAdmin: null,
+    states: ['open'],
+    inStudy: { reach: { systems_engineer: 'all', chief_engineer: 'all' }, owner: 'all' },
+  },
+  /** Remove anyone's evidence from the row; whoever attached a file may remove it too (`mayRemoveEvidence`). */
+  removeEvidence: {
+    reach: { subsystem_owner: 'named_subsystems', systems_engineer: 'all', chief_engineer: 'all' },
+    orgAdmin: null,
+    states: ['open'],
+    inStudy: { reach: { systems_engineer: 'all', chief_engineer: 'all' }, owner: 'all' },
+  },
+  /**
+   * Change, add or remove the row through an imported workbook. The import opens a study from the revision, so any
+   * revision may be the source, locked or not; partners reach the subsystems shared with them, owners their own.
+   */
+  importRow: {
+    reach: { partner: 'named_subsystems', subsystem_owner: 'named_subsystems', systems_engineer: 'all', chief_engineer: 'all' },
+    orgAdmin: null,
+    states: ['open', 'locked'],
+  },
 } as const satisfies Record<string, RowRule>;
 
 export type RowAction = keyof typeof rowPermissions;
@@ -163,6 +211,17 @@ export function mayOnAnyRow(action: RowAction, who: Who, revision: RevisionStand
   return reachesFor(action, who, revision).some((reach) => reach === 'all' || (who.subsystemIds ?? []).length > 0);
 }
 
+/** Whether the person may remove this file from the row: by `removeEvidence`, or as the one who attached it while they may attach. */
+export function mayRemoveEvidence(
+  who: Who,
+  row: { readonly subsystemId: string },
+  revision: RevisionStanding,
+  attachment: { readonly uploadedById: string | null },
+): boolean {
+  if (mayOnRow('removeEvidence', who, row, revision)) return true;
+  return who.userId !== undefined && attachment.uploadedById === who.userId && mayOnRow('attachEvidence', who, row, revision);
+}
+
 /**
  * Why the person may not take the action on the row, in words for the screen and the API's 403; undefined
  * when they may.
@@ -180,11 +239,19 @@ export function whyNotOnRow(
       ? 'This study was promoted and is locked: its rows cannot change'
       : `This ${revision.kind} is locked: its rows cannot change`;
   }
+  if (action === 'importRow') {
+    return who.role === 'partner'
+      ? `Rows of "${row.subsystemName}" are not shared with you`
+      : `Rows of "${row.subsystemName}" are changed by their owner or an engineer`;
+  }
   if (revision.kind === 'study' && rule.inStudy && mayOnCraft('openStudy', who)) {
     return 'A study is changed by its owner and by systems and chief engineers; open a study of your own to try changes';
   }
-  if (action === 'editRow' && who.role === 'subsystem_owner') {
+  if ((action === 'editRow' || action === 'attachEvidence') && who.role === 'subsystem_owner') {
     return `You own other subsystems; rows of "${row.subsystemName}" are edited by their owner or an engineer`;
+  }
+  if (action === 'removeEvidence') {
+    return 'Evidence is removed by whoever attached it, the owner of its subsystem or an engineer';
   }
   if (action === 'manageRow' && who.role === 'subsystem_owner') {
     return 'Adding, renaming, moving and deleting rows is for systems and chief engineers';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { idSchema, textLine } from './common';
+import { idSchema, textBlock, textLine } from './common';
 import { parameterKeySchema, parameterSchema, sheetHeaderSchema } from './sheet';
 
 /**
@@ -125,8 +125,8 @@ export const updateParameterBodySchema = z
     formula: z.string().trim().max(4000).optional(),
     unit: z.string().trim().max(60).optional(),
     label: textLine(200).optional(),
-    note: z.string().max(4000).optional(),
-    source: z.string().max(1000).optional(),
+    note: textBlock(4000).optional(),
+    source: textBlock(1000).optional(),
     subsystem: textLine(60).optional(),
     mass: massSchema.nullable().optional(),
     key: parameterKeySchema.optional(),
@@ -181,7 +181,15 @@ export const budgetRollUpSchema = z.object({
   ),
   bySubsystem: z.array(z.object({ subsystem: z.string(), cbe: z.number(), predicted: z.number() })),
   total: z.object({ cbe: z.number(), predicted: z.number() }),
-  systemMargin: z.object({ kg: z.number(), percentOfAllocation: z.number(), requiredPercent: z.number(), belowRequired: z.boolean() }),
+  systemMargin: z.object({
+    kg: z.number(),
+    percentOfAllocation: z.number(),
+    percentOfPredicted: z.number().nullable(),
+    requiredPercent: z.number(),
+    requiredPercentOfBasis: z.number(),
+    requiredBasis: z.enum(['allocation', 'predicted']),
+    belowRequired: z.boolean(),
+  }),
 });
 
 /** GET .../evaluation: the CLI's JSON shape plus the mass budget, computed on the server with the shared engine. */
@@ -195,14 +203,8 @@ export const evaluationResponseSchema = z.object({
 });
 export type EvaluationResponse = z.infer<typeof evaluationResponseSchema>;
 
-/** Text PostgreSQL can store: it refuses the NUL character (a name, a single line, refuses every control character). */
-const storable = { message: 'must not contain NUL characters' };
 const revisionName = textLine(100);
-const revisionNote = z
-  .string()
-  .trim()
-  .max(4000, { message: 'must be at most 4000 characters' })
-  .refine((text) => !text.includes('\u0000'), storable);
+const revisionNote = textBlock(4000).trim();
 
 /** POST .../revisions/:revisionId/lock: the working draft locked as a baseline, `label` naming the design review. */
 export const lockBaselineBodySchema = z.object({ label: revisionName, note: revisionNote.default('') }).strict();

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { allowanceTableSchema } from './allowance-tables';
 
 /**
  * Why a parameter key is refused, or undefined when it is a usable key.
@@ -9,13 +10,13 @@ export function parameterKeyProblem(key: string): string | undefined {
   if (!/^[a-z][a-z0-9_]*$/.test(key)) {
     return 'must be snake_case: a lower-case letter, then lower-case letters, digits or underscores';
   }
-  if (/^[a-z]+[0-9]+$/.test(key)) return 'reads as an A1 cell reference (letters then digits)';
-  if (/^r[0-9]*c[0-9]*$/.test(key)) return 'reads as an R1C1 cell reference';
+  if (/^[a-z]+[0-9]+$/.test(key)) return 'looks like a grid address (letters then digits): put an underscore before the digits';
+  if (/^r[0-9]*c[0-9]*$/.test(key)) return 'looks like a grid address (r and c with row and column numbers): choose a longer name';
   if (key === 'true' || key === 'false') return 'is a logical constant';
   return undefined;
 }
 
-/** A parameter key: snake_case and never read as a cell reference. */
+/** A parameter key: snake_case and never read as a grid address. */
 export const parameterKeySchema = z.string().superRefine((key, ctx) => {
   const problem = parameterKeyProblem(key);
   if (problem !== undefined) ctx.addIssue({ code: 'custom', message: `key "${key}" ${problem}` });
@@ -65,6 +66,8 @@ const sheetHeader = {
     .object({
       preset: z.string().min(1),
       requiredMarginPercent: z.number().min(0).max(100).optional(),
+      /** The craft's own allowance table, used in place of the preset when the craft has one. */
+      table: allowanceTableSchema.optional(),
     })
     .strict()
     .optional(),

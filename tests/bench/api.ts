@@ -11,6 +11,8 @@ import { chooseAtFake, CookieJar } from '@/tests/server/helpers/sign-in';
 export interface ApiSession {
   /** Calls the API as the signed-in person; throws with the answer's body on a non-2xx status. */
   call<T>(method: string, path: string, schema: z.ZodType<T>, body?: unknown): Promise<T>;
+  /** The Cookie header a browser of this person sends (the session cookie), for load runs as that browser. */
+  cookieHeader(): string;
 }
 
 /** Signs a demo person (their subject at the fake, e.g. 'demo-ines') in through the company SSO button's flow. */
@@ -30,6 +32,7 @@ export async function signInWithFetch(appUrl: string, subject: string): Promise<
   const session = z.object({ csrfToken: z.string() }).parse(await (await visit(`${appUrl}/api/auth/session`)).json());
 
   return {
+    cookieHeader: () => jar.header(),
     async call(method, path, schema, body) {
       const response = await visit(`${appUrl}${path}`, {
         method,

@@ -13,6 +13,8 @@ declare module 'autocannon' {
     connections?: number;
     duration?: number;
     headers?: Record<string, string>;
+    method?: string;
+    body?: string | Buffer;
   }
 
   export interface Result {
@@ -22,6 +24,8 @@ declare module 'autocannon' {
     timeouts: number;
     non2xx: number;
     duration: number;
+    /** Answers by status code, e.g. { '401': { count: 12 } }. */
+    statusCodeStats?: Record<string, { count: number }>;
   }
 
   function autocannon(options: Options): Promise<Result>;

@@ -1,10 +1,12 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { craftNamed, createToken, signInWithFetch } from './api';
+import { craftNamed, createToken, revisionPath, signInWithFetch } from './api';
 import { benchCompare } from './compare';
+import { benchExchange } from './exchange';
 import { createLargeCraft } from './large-craft';
-import { benchRevisionUnderLoad, benchServerEvaluation } from './server';
+import { benchHealthUnderHostileBodies } from './hostile';
+import { benchReadsUnderLoad, benchServerEvaluation, type LoadFigures } from './server';
 import { startBenchStack } from './stack';
 import { benchKeystrokeToSummary, webDist, webJavaScriptGzipBytes } from './web';
 
@@ -30,8 +32,27 @@ const KEYSTROKE_ROWS = 1000;
 const EVALUATION_ROWS = 5000;
 
 const milliseconds = (value: number) => `${value.toFixed(1)} ms`;
+const rate = (value: number) => `${value.toFixed(0)} req/s`;
 
-/** TRIMSHEET_BENCH_ONLY=keystroke|evaluation|compare|load runs just that product benchmark (while working on it). */
+/** The lines of one read under load: its rate beside the bare endpoint's, the ratio, p99 and failures, each against its goal. */
+function loadFigures(what: string, { target, bare }: { target: LoadFigures; bare: LoadFigures }): Figure[] {
+  const ratio = target.requestsPerSecond / bare.requestsPerSecond;
+  return [
+    {
+      name: `${what}, 50 connections for 20 s: the read / bare Express + pg SELECT 1 beside it`,
+      measured: `${rate(target.requestsPerSecond)} / ${rate(bare.requestsPerSecond)} = ${ratio.toFixed(2)}x`,
+      target: { text: '>= 0.3x', met: ratio >= 0.3 },
+    },
+    {
+      name: `${what}, p99 latency`,
+      measured: milliseconds(target.p99Milliseconds),
+      target: { text: '< 50 ms', met: target.p99Milliseconds < 50 },
+    },
+    { name: `${what}, errors, timeouts and non-2xx`, measured: String(target.failures), target: { text: '0', met: target.failures === 0 } },
+  ];
+}
+
+/** TRIMSHEET_BENCH_ONLY=keystroke|evaluation|compare|load|hostile|exchange runs just that product benchmark (while working on it). */
 const only = process.env.TRIMSHEET_BENCH_ONLY;
 
 async function measure(figures: Figure[], name: string, work: () => Promise<Figure[]>): Promise<void> {
@@ -116,30 +137,64 @@ export async function runProductBenchmarks(): Promise<void> {
       ];
     });
 
-    await measure(figures, 'GET of a revision under load, 50 connections', async () => {
-      const tern = await craftNamed(reader, 'Tern');
-      const { revision, bare } = await benchRevisionUnderLoad(stack, await createToken(reader, 'read'), {
-        craftId: tern.id,
-        revisionId: tern.draftRevisionId,
-      });
-      const ratio = revision.requestsPerSecond / bare.requestsPerSecond;
-      const rate = (value: number) => `${value.toFixed(0)} req/s`;
+    // TRIMSHEET_BENCH_ONLY=exchange: the workbook export and import of a large revision, and a zip bomb refused.
+    await measure(figures, `workbook exchange of a ${EVALUATION_ROWS.toLocaleString('en')}-row revision`, async () => {
+      const craft = await createLargeCraft(api, stack.databaseUrl, EVALUATION_ROWS);
+      const exchange = await benchExchange(
+        stack.appUrl,
+        await createToken(api, 'read_write'),
+        { ...craft, rows: EVALUATION_ROWS },
+        stack.serverPid,
+      );
+      const rows = `${EVALUATION_ROWS.toLocaleString('en')}-row revision`;
+      const peak = exchange.bomb.peakRssDeltaBytes;
       return [
         {
-          name: "GET of Tern's draft by its systems engineer, 50 connections for 20 s, bearer token",
-          measured: rate(revision.requestsPerSecond),
-        },
-        { name: 'bare Express + pg SELECT 1, same load', measured: rate(bare.requestsPerSecond) },
-        { name: 'revision GET / bare SELECT 1', measured: `${ratio.toFixed(2)}x`, target: { text: '>= 0.3x', met: ratio >= 0.3 } },
-        {
-          name: 'revision GET, p99 latency',
-          measured: milliseconds(revision.p99Milliseconds),
-          target: { text: '< 50 ms', met: revision.p99Milliseconds < 50 },
+          name: `export of a ${rows} as .xlsx (GET .../export.xlsx, ${(exchange.workbookBytes / 1024).toFixed(0)} KB)`,
+          measured: milliseconds(exchange.exportMedian),
+          target: { text: '< 600 ms', met: exchange.exportMedian < 600 },
         },
         {
-          name: 'revision GET, errors, timeouts and non-2xx',
-          measured: String(revision.failures),
-          target: { text: '0', met: revision.failures === 0 },
+          name: `import of that workbook, one value changed (POST .../imports: checks, parsing, preview stored)`,
+          measured: milliseconds(exchange.importMedian),
+          target: { text: '< 500 ms', met: exchange.importMedian < 500 },
+        },
+        {
+          name: `server memory while refusing a ${(exchange.bomb.bytes / 1024).toFixed(0)} KB zip bomb of 400 MB (peak RSS over before; answer ${exchange.bomb.status})`,
+          measured: peak === undefined ? 'not measured (no /proc)' : `${(peak / 1024 / 1024).toFixed(1)} MB`,
+          ...(peak === undefined ? {} : { target: { text: '< 64 MB', met: peak < 64 * 1024 * 1024 && exchange.bomb.status === 413 } }),
+        },
+      ];
+    });
+
+    await measure(figures, 'signed-in reads under load, 50 connections', async () => {
+      const tern = await craftNamed(reader, 'Tern');
+      const browser = { cookie: reader.cookieHeader() };
+      const revisionUrl = `${stack.appUrl}${revisionPath(tern.id, tern.draftRevisionId)}`;
+      const reads = [
+        { what: 'GET /api/crafts by a systems engineer, session cookie', url: `${stack.appUrl}/api/crafts`, headers: browser },
+        { what: "GET of Tern's draft by its systems engineer, session cookie", url: revisionUrl, headers: browser },
+        {
+          what: "GET of Tern's draft by its systems engineer, bearer token",
+          url: revisionUrl,
+          headers: { authorization: `Bearer ${await createToken(reader, 'read')}` },
+        },
+      ];
+      const measured = await benchReadsUnderLoad(stack, reads);
+      return reads.flatMap((read, index) => {
+        const figures = measured[index];
+        return figures ? loadFigures(read.what, figures) : [];
+      });
+    });
+
+    await measure(figures, 'hostile bodies: health check under load by anonymous 1 MB nested bodies', async () => {
+      const { alone, underAttack, answers } = await benchHealthUnderHostileBodies(stack.appUrl);
+      return [
+        { name: 'GET /api/health, one at a time, alone', measured: milliseconds(alone) },
+        {
+          name: `GET /api/health while 4 anonymous connections post 1 MB nested JSON (${answers})`,
+          measured: milliseconds(underAttack),
+          target: { text: '< 3x alone', met: underAttack < 3 * alone },
         },
       ];
     });

@@ -10,6 +10,7 @@ import { evaluateSheet } from '@/shared/engine/evaluate';
 import { createSheetSession } from '@/shared/engine/session';
 import { squareSailTemplate } from '@/shared/templates';
 import { runProductBenchmarks } from '@/tests/bench/product';
+import { benchUncertainty } from '@/tests/bench/uncertainty';
 import { syntheticSheet } from '@/tests/bench/synthetic-sheet';
 
 function median(samples: number[]): number {
@@ -41,6 +42,11 @@ function requireOk<T>(result: { ok: true; result: T } | { ok: false; errors: unk
 }
 
 console.log('median of several runs each, after one warm-up run');
+// TRIMSHEET_BENCH_ONLY=uncertainty: only the uncertainty study, on the engine (no product stack).
+if (process.env.TRIMSHEET_BENCH_ONLY === 'uncertainty') {
+  benchUncertainty(report, time);
+  process.exit(0);
+}
 for (const [size, runs] of [
   [100, 30],
   [1000, 10],
@@ -119,6 +125,8 @@ benchSweep('10,000-parameter sheet (p_0)', tenThousand, sweepOfFirst, lastThree(
     50,
   );
 }
+
+benchUncertainty(report, time);
 
 // The running product (web build, browser, server under load), on a stack of its own.
 runProductBenchmarks().catch((error: unknown) => {

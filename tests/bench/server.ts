@@ -1,6 +1,5 @@
 import autocannon, { type Result } from 'autocannon';
 import path from 'node:path';
-import { z } from 'zod';
 import { inheritedEnvironment } from '@/server/env';
 import { evaluationResponseSchema } from '@/shared/schemas/revisions';
 import { revisionPath } from './api';
@@ -54,24 +53,27 @@ function load(url: string, headers: Record<string, string>, duration: number): P
   return autocannon({ url, headers, connections: LOAD.connections, duration });
 }
 
-/**
- * `GET` of a revision under 50 connections for 20 s with a bearer token, and the same load on a bare
- * Express + pg `SELECT 1` endpoint started here on the same database cluster. The machine is shared (other
- * work comes and goes, and a 2-core machine feels every bit of it), so the bare endpoint's 20 s are split
- * around the revision's, half before and half after: measured one after the other, whichever ran in the
- * quieter moment looked better.
- */
-export async function benchRevisionUnderLoad(
-  stack: BenchStack,
-  token: string,
-  revision: { craftId: string; revisionId: string },
-): Promise<{ revision: LoadFigures; bare: LoadFigures }> {
-  const url = `${stack.appUrl}${revisionPath(revision.craftId, revision.revisionId)}`;
-  const authorization = { authorization: `Bearer ${token}` };
-  const check = await fetch(url, { headers: authorization });
-  if (!check.ok) throw new Error(`GET ${url} with a bearer token: ${check.status} ${(await check.text()).slice(0, 300)}`);
-  z.object({ sheet: z.object({ parameters: z.array(z.unknown()).min(1) }) }).parse(await check.json());
+/** A signed-in GET to put under load: its URL and the headers that sign it in (a session cookie or a bearer token). */
+export interface LoadTarget {
+  url: string;
+  headers: Record<string, string>;
+}
 
+/**
+ * Each target under 50 connections for 20 s, beside the same load on a bare Express + pg `SELECT 1` endpoint
+ * started here on the same database cluster. The machine is shared (other work comes and goes, and a 2-core
+ * machine feels every bit of it), so the bare endpoint's 20 s are split around each target's, half before and
+ * half after: measured one after the other, whichever ran in the quieter moment looked better. Each target
+ * is checked first with one request, which must answer 2xx.
+ */
+export async function benchReadsUnderLoad(
+  stack: BenchStack,
+  targets: readonly LoadTarget[],
+): Promise<{ target: LoadFigures; bare: LoadFigures }[]> {
+  for (const { url, headers } of targets) {
+    const check = await fetch(url, { headers });
+    if (!check.ok) throw new Error(`GET ${url}: ${check.status} ${(await check.text()).slice(0, 300)}`);
+  }
   const bare = spawnTypeScript(path.join(__dirname, 'bare-server.ts'), [], {
     ...inheritedEnvironment(),
     DATABASE_URL: stack.databaseUrl,
@@ -81,13 +83,17 @@ export async function benchRevisionUnderLoad(
   try {
     const bareUrl = `http://127.0.0.1:${BARE_PORT}/select-one`;
     await waitUntilAnswering(bareUrl, bare.child);
-    // A short run of each first, so both servers are measured warm (JIT, pool connections open).
+    // A short run of each first, so every server is measured warm (JIT, pool connections open).
     await load(bareUrl, {}, 2);
-    await load(url, authorization, 2);
-    const bareBefore = await load(bareUrl, {}, LOAD.duration / 2);
-    const revisionRun = await load(url, authorization, LOAD.duration);
-    const bareAfter = await load(bareUrl, {}, LOAD.duration / 2);
-    return { revision: figuresOf([revisionRun]), bare: figuresOf([bareBefore, bareAfter]) };
+    const figures: { target: LoadFigures; bare: LoadFigures }[] = [];
+    for (const { url, headers } of targets) {
+      await load(url, headers, 2);
+      const bareBefore = await load(bareUrl, {}, LOAD.duration / 2);
+      const targetRun = await load(url, headers, LOAD.duration);
+      const bareAfter = await load(bareUrl, {}, LOAD.duration / 2);
+      figures.push({ target: figuresOf([targetRun]), bare: figuresOf([bareBefore, bareAfter]) });
+    }
+    return figures;
   } finally {
     await bare.stop();
   }

@@ -21,7 +21,7 @@ export const benchPorts = {
   postgres: 5734 + portOffset,
   oidc: 8490 + portOffset,
   smtp: 2925 + portOffset,
-  inbox: 8425 + portOffset,
+  inbox: 8495 + portOffset,
 } as const;
 
 const root = path.resolve(__dirname, '..', '..');
@@ -31,6 +31,8 @@ export interface BenchStack {
   appUrl: string;
   /** The seeded database the server uses, for fixtures written through the service layer. */
   databaseUrl: string;
+  /** The server's process (tsx, with the node process it runs as a child): its memory is read from /proc. */
+  serverPid: number | undefined;
   stop(): Promise<void>;
 }
 
@@ -101,10 +103,11 @@ export async function startBenchStack(): Promise<BenchStack> {
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(mail.smtpPort),
       SIGN_IN_RATE_LIMIT: '10000',
+      WRITE_RATE_LIMIT: '100000',
     });
     stops.push(server.stop);
     await waitUntilAnswering(`${appUrl}/api/health`, server.child);
-    return { appUrl, databaseUrl: pg.url('trimsheet'), stop };
+    return { appUrl, databaseUrl: pg.url('trimsheet'), serverPid: server.child.pid, stop };
   } catch (error) {
     await stop();
     throw error;

@@ -1,3 +1,5 @@
+import { findPreset } from '@/shared/budget/presets';
+
 /**
  * Every API route with the status each kind of caller gets: the role matrix calls them all, and the
  * OpenAPI test checks that each is documented. Targets are chosen so that allowed writes do not change
@@ -38,6 +40,20 @@ export interface RouteCase {
   undocumented?: true;
 }
 
+/** A team's own allowance table: the AIAA-style preset's cells, saved as the craft's. */
+const aiaa = findPreset('aiaa-s120a');
+const teamTable = {
+  id: 'team-table',
+  name: 'Our allowance table',
+  source: 'Team copy of the AIAA-style preset',
+  caveat: 'Cells copied from the preset, to be replaced with our licensed table.',
+  maturities: aiaa?.maturities,
+  categories: aiaa?.categories,
+  table: aiaa?.table,
+  systemMarginPercent: aiaa?.systemMarginPercent,
+  systemMarginBasis: aiaa?.systemMarginBasis,
+};
+
 const signedInOnly = { signedOut: 401, default: 200 };
 const craftMembersOnly = { signedOut: 401, priya: 404, default: 200 };
 const adminsOnly = (allowed: number, otherOrg: number) => ({ signedOut: 401, ines: allowed, priya: otherOrg, default: 403 });
@@ -68,6 +84,8 @@ export const routeCases: RouteCase[] = [
     body: () => ({ mail: { baseline_locked: true, study_promoted: true, row_changed: true } }),
     expected: signedInOnly,
   },
+  { method: 'get', template: '/api/account/identities', expected: signedInOnly },
+  { method: 'post', template: '/api/account/identities', body: () => ({ provider: 'google' }), expected: signedInOnly },
   { method: 'get', template: '/api/notifications', expected: signedInOnly },
   { method: 'post', template: '/api/notifications/read', body: () => ({}), expected: { signedOut: 401, default: 204 } },
   { method: 'get', template: '/api/templates', expected: signedInOnly },
@@ -162,6 +180,32 @@ export const routeCases: RouteCase[] = [
     fill: (ids) => ({ revisionId: ids.baselineId }),
     expected: { signedOut: 401, lucia: 403, priya: 404, default: 200 },
   },
+  { method: 'get', template: `${craft}/allowance-table`, expected: craftMembersOnly },
+  // The shipped AIAA-style cells under a table of the team's own: the budget rolls up as before for later rows.
+  { method: 'put', template: `${craft}/allowance-table`, body: () => ({ table: teamTable }), expected: engineersOnly(200) },
+  // A computation, not a write: everyone on the craft runs it (the partner on the rows shared with them: sail side is).
+  {
+    method: 'post',
+    template: `${revision}/uncertainty`,
+    body: () => ({ inputs: [{ key: 'sail_side', distribution: { kind: 'uniform', min: 40, max: 50 } }], samples: 200 }),
+    expected: craftMembersOnly,
+  },
+  { method: 'get', template: `${revision}/export.xlsx`, expected: craftMembersOnly },
+  { method: 'get', template: `${revision}/export.json`, fill: (ids) => ({ revisionId: ids.baselineId }), expected: craftMembersOnly },
+  { method: 'get', template: `${revision}/export.csv`, expected: craftMembersOnly },
+  // Without a file: whoever may import gets 400 file_missing; the right to import is checked before the upload is read.
+  {
+    method: 'post',
+    template: `${revision}/imports`,
+    expected: { signedOut: 401, ines: 403, oren: 403, priya: 404, default: 400 },
+  },
+  {
+    method: 'post',
+    template: `${craft}/imports/{importId}/accept`,
+    fill: () => ({ importId: '00000000-0000-4000-8000-000000000000' }),
+    body: () => ({}),
+    expected: { signedOut: 401, ines: 403, oren: 403, priya: 404, default: 404 },
+  },
   { method: 'get', template: `${revision}/history`, expected: craftMembersOnly },
   {
     method: 'get',
@@ -169,6 +213,54 @@ export const routeCases: RouteCase[] = [
     fill: (ids) => ({ revisionId: ids.baselineId }),
     query: 'key=sail_side',
     expected: craftMembersOnly,
+  },
+  // Evidence on rows. Membrane mass is in the subsystem shared with the partner; boom mass is Kenji's.
+  {
+    method: 'get',
+    template: `${revision}/parameters/{key}/attachments`,
+    fill: () => ({ key: 'membrane_mass' }),
+    expected: craftMembersOnly,
+  },
+  {
+    method: 'get',
+    template: `${revision}/parameters/{key}/attachments`,
+    fill: () => ({ key: 'boom_mass' }),
+    expected: { ...craftMembersOnly, lucia: 404 },
+  },
+  // A JSON body carries no file: whoever may attach gets 400 file_missing (checked after access), so nothing is written.
+  {
+    method: 'post',
+    template: `${revision}/parameters/{key}/attachments`,
+    fill: () => ({ key: 'membrane_mass' }),
+    body: () => ({ kind: 'datasheet' }),
+    expected: { ...engineersOnly(400), lucia: 400 },
+  },
+  {
+    method: 'post',
+    template: `${revision}/parameters/{key}/attachments`,
+    fill: () => ({ key: 'boom_mass' }),
+    body: () => ({ kind: 'datasheet' }),
+    expected: { ...engineersOnly(400), kenji: 400, lucia: 404 },
+  },
+  {
+    method: 'post',
+    template: `${revision}/parameters/{key}/attachments`,
+    fill: (ids) => ({ revisionId: ids.baselineId, key: 'membrane_mass' }),
+    body: () => ({ kind: 'datasheet' }),
+    expected: { signedOut: 401, priya: 404, default: 403 },
+  },
+  // No such file: those who may remove evidence (or their own) get 404, the others 403 before it is looked up.
+  {
+    method: 'delete',
+    template: `${revision}/parameters/{key}/attachments/{attachmentId}`,
+    fill: () => ({ key: 'boom_mass', attachmentId: '00000000-0000-4000-8000-000000000000' }),
+    expected: { ...engineersOnly(404), kenji: 404, lucia: 404 },
+  },
+  {
+    method: 'get',
+    template: `${craft}/attachments/{attachmentId}`,
+    fill: () => ({ attachmentId: '00000000-0000-4000-8000-000000000000' }),
+    expected: { signedOut: 401, default: 404 },
   },
   { method: 'get', template: `${craft}/audit`, expected: { signedOut: 401, ines: 200, tomas: 200, priya: 404, default: 403 } },
   {
@@ -197,6 +289,13 @@ export const routeCases: RouteCase[] = [
     body: (actor) => ({ name: `Invitee of ${actor}`, email: `invitee-${actor.toLowerCase()}@corvid-sailworks.example` }),
     expected: adminsOnly(201, 201),
   },
+  // No such invitation: admins get 404, as for another organisation's.
+  {
+    method: 'delete',
+    template: '/api/organisation/invitations/{invitationId}',
+    fill: () => ({ invitationId: '00000000-0000-4000-8000-000000000000' }),
+    expected: adminsOnly(404, 404),
+  },
   {
     method: 'put',
     template: '/api/organisation/people/{userId}/admin',
@@ -204,7 +303,8 @@ export const routeCases: RouteCase[] = [
     body: () => ({ isOrgAdmin: false }),
     expected: adminsOnly(200, 404),
   },
-  { method: 'get', template: '/api/no-such-route', expected: { default: 404 }, undocumented: true },
+  // Signed out, any path past the public ones is 401 before routing: which routes exist is not told to strangers.
+  { method: 'get', template: '/api/no-such-route', expected: { signedOut: 401, default: 404 }, undocumented: true },
   // Last: signing out everywhere also ends the sessions the rows above use.
   { method: 'post', template: '/api/auth/sign-out', expected: { default: 204 }, endsSession: true },
   { method: 'post', template: '/api/auth/sign-out-everywhere', expected: { signedOut: 401, default: 204 }, endsSession: true },

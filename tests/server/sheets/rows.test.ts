@@ -359,8 +359,8 @@ describe('rows: add, rename, reorder, move, delete', () => {
 describe('subsystems', () => {
   it('adds, renames and deletes a subsystem; refuses to delete one rows use', async () => {
     const base = `/api/crafts/${ternId}/subsystems`;
-    const created = await amara.agent.post(base).set('x-csrf-token', amara.csrfToken).send({ name: 'Attitude control' }).expect(201);
-    await amara.agent.post(base).set('x-csrf-token', amara.csrfToken).send({ name: 'Attitude control' }).expect(409);
+    const created = await amara.agent.post(base).set('x-csrf-token', amara.csrfToken).send({ name: 'Thermal control' }).expect(201);
+    await amara.agent.post(base).set('x-csrf-token', amara.csrfToken).send({ name: 'Thermal control' }).expect(409);
     const renamed = await amara.agent
       .patch(`${base}/${created.body.id}`)
       .set('x-csrf-token', amara.csrfToken)
