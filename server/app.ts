@@ -40,6 +40,8 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
+  // API answers are Cache-Control: no-store, so no client revalidates them: hashing every body for an ETag is wasted work.
+  app.set('etag', false);
   app.use(
     helmet({
       contentSecurityPolicy: {
