@@ -1,17 +1,12 @@
-import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { cliEvaluationSchema, cliSizeSchema, cliSweepSchema, cliUncertaintySchema } from '@/shared/schemas/cli';
 import { uncertaintyRequestSchema } from '@/shared/schemas/uncertainty';
 import { squareSailTemplate } from '@/shared/templates';
 import { runStudy } from '@/shared/uncertainty';
+import { repositoryRoot, runEvaluate } from '../helpers/cli';
 
-const root = path.resolve(__dirname, '..', '..', '..');
-const templateFile = path.join(root, 'shared', 'templates', 'square-sail.json');
-
-function evaluate(...args: string[]): { status: number | null; output: unknown } {
-  const result = spawnSync('npm', ['run', '--silent', 'evaluate', '--', ...args], { cwd: root, encoding: 'utf8' });
-  return { status: result.status, output: JSON.parse(result.stdout) };
-}
+const templateFile = path.join(repositoryRoot, 'shared', 'templates', 'square-sail.json');
+const evaluate = runEvaluate;
 
 jest.setTimeout(60_000);
 

@@ -1,20 +1,11 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import type { CliEvaluation } from '@/shared/schemas/cli';
+import { repositoryRoot, runEvaluate } from '../helpers/cli';
 
-const root = path.resolve(__dirname, '..', '..', '..');
-const template = path.join(root, 'shared', 'templates', 'square-sail.json');
-
-interface CliOutput {
-  values: Record<string, { value: number; unit: string }>;
-  errors: { key: string; code: string; message: string }[];
-}
-
-function evaluate(...args: string[]): { status: number | null; output: CliOutput } {
-  const result = spawnSync('npm', ['run', '--silent', 'evaluate', '--', ...args], { cwd: root, encoding: 'utf8' });
-  return { status: result.status, output: JSON.parse(result.stdout) as CliOutput };
-}
+const template = path.join(repositoryRoot, 'shared', 'templates', 'square-sail.json');
+const evaluate = (...args: string[]) => runEvaluate<CliEvaluation>(...args);
 
 function sheetFile(content: unknown): string {
   const file = path.join(mkdtempSync(path.join(tmpdir(), 'trimsheet-cli-')), 'sheet.json');

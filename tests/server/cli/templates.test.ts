@@ -1,18 +1,8 @@
-import { spawnSync } from 'node:child_process';
-import path from 'node:path';
+import type { CliEvaluation } from '@/shared/schemas/cli';
 import { templates } from '@/shared/templates';
+import { runEvaluate } from '../helpers/cli';
 
-const root = path.resolve(__dirname, '..', '..', '..');
-
-interface CliOutput {
-  values: Record<string, { value: number; unit: string }>;
-  errors: { key: string; code: string; message: string }[];
-}
-
-function evaluate(...args: string[]): { status: number | null; output: CliOutput } {
-  const result = spawnSync('npm', ['run', '--silent', 'evaluate', '--', ...args], { cwd: root, encoding: 'utf8' });
-  return { status: result.status, output: JSON.parse(result.stdout) as CliOutput };
-}
+const evaluate = (...args: string[]) => runEvaluate<CliEvaluation>(...args);
 
 jest.setTimeout(60_000);
 
