@@ -42,19 +42,20 @@ describeInBrowser('spreadsheet exchange in the browser', () => {
         const saved = path.join(folder, 'export.xlsx');
         await (await download).saveAs(saved);
 
-        // A partner's edit of the downloaded file: the sail side and a bad unit.
+        // A partner's edit of the downloaded file: the deployer's mass (a row no other browser test writes, as
+        // they run at the same time on the same database) and a bad unit.
         const workbook = new ExcelJS.Workbook();
         await workbook.xlsx.readFile(saved);
         const parameters = workbook.getWorksheet('Parameters');
         if (!parameters) throw new Error('the export has no Parameters sheet');
-        let sailSide = 0;
+        let deployer = 0;
         let payload = 0;
         parameters.eachRow((row, number) => {
-          if (row.getCell('A').text === 'sail_side') sailSide = number;
+          if (row.getCell('A').text === 'deployer_mass') deployer = number;
           if (row.getCell('A').text === 'payload_mass') payload = number;
         });
-        const side = viewport.name === 'phone' ? 48 : 52;
-        parameters.getCell(`D${sailSide}`).value = side;
+        const mass = viewport.name === 'phone' ? 6.25 : 6.75;
+        parameters.getCell(`D${deployer}`).value = mass;
         parameters.getCell(`E${payload}`).value = 'furlongs';
         const edited = path.join(folder, 'partner.xlsx');
         await workbook.xlsx.writeFile(edited);
@@ -63,7 +64,7 @@ describeInBrowser('spreadsheet exchange in the browser', () => {
         await chooser.setFiles(edited);
         const preview = page.getByTestId('import-preview');
         await preview.waitFor();
-        await page.getByTestId('import-changed').getByText(`${side} m`).waitFor();
+        await page.getByTestId('import-changed').getByText(`${mass} kg`).waitFor();
         await page.getByTestId('import-problems').getByText(`Parameters!E${payload}`).waitFor();
         await preview.scrollIntoViewIfNeeded();
         await shot('preview');
