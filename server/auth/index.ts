@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from '../env';
 import { createCsrf } from './csrf';
 import { authRouter } from './router';
-import { createPassport, PostgresSessionStore, sessionMiddleware } from './session';
+import { createPassport, PostgresSessionStore, recentSessionReads, sessionMiddleware } from './session';
 import { googleStrategy, ssoStrategyLoader } from './strategies';
 
 export interface Auth {
@@ -24,7 +24,14 @@ export function createAuth({ config, sequelize }: { config: Config; sequelize: S
   passport.use(googleStrategy(config));
   const csrf = createCsrf(config);
   return {
-    browser: Router().use(cookieParser(), sessionMiddleware(config, store), passport.initialize(), passport.session(), csrf.protection),
+    browser: Router().use(
+      recentSessionReads(config, store),
+      cookieParser(),
+      sessionMiddleware(config, store),
+      passport.initialize(),
+      passport.session(),
+      csrf.protection,
+    ),
     router: authRouter({ config, sequelize, passport, csrf, loadSso: ssoStrategyLoader(passport, config) }),
   };
 }

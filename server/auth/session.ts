@@ -1,4 +1,5 @@
 import type { Request, RequestHandler, Response } from 'express';
+import { unsign } from 'cookie-signature';
 import expressSession, { type SessionData } from 'express-session';
 import passport from 'passport';
 import type { Sequelize } from 'sequelize';
@@ -77,6 +78,11 @@ const sessionAndPersonSql = `
   LEFT JOIN organisations o ON o.id = u.organisation_id
   WHERE s.sid = $1 AND s.expire > now() AND s.ends_at > now()`;
 
+/** Whether moving the idle expiry forward now would move it by less than a minute, or the absolute end caps it already. */
+function touchNotDue(read: ReadWithSession, idleMs: number, now: number): boolean {
+  return now + idleMs - read.expireMs < TOUCH_RESOLUTION_MS || read.expireMs >= read.endsAtMs;
+}
+
 /** Whether a session belongs to someone signed in (passport keeps their id), rather than a sign-in in progress. */
 const isSignedIn = (sess: Partial<SessionData>) => typeof sess.passport?.user === 'string';
 
@@ -130,6 +136,17 @@ export class PostgresSessionStore extends expressSession.Store {
     }, callback);
   }
 
+  /**
+   * The person of a signed-in session this process read in the last few seconds and whose row needs no touch
+   * yet; undefined otherwise (the request then goes through the session middleware, which reads or touches it).
+   */
+  recentPerson(sid: string): SignedInUserRecord | undefined {
+    const now = Date.now();
+    const recent = this.recent.get(sid);
+    if (!recent?.read.user || recent.until <= now || recent.read.expireMs <= now || recent.people !== peopleChanges) return undefined;
+    return touchNotDue(recent.read, this.lifetimes.idleMs, now) ? recent.read.user : undefined;
+  }
+
   /** express-session's Session copies only enumerable string keys: carry over what was read with the row. */
   override createSession(req: Request, sess: SessionDataRead) {
     const read = sess[readWith];
@@ -157,7 +174,7 @@ export class PostgresSessionStore extends expressSession.Store {
   override touch(sid: string, sess: SessionDataRead, callback?: (error?: unknown) => void): void {
     const read = sess[readWith];
     const idleMs = this.idleMs(sess);
-    if (read && (Date.now() + idleMs - read.expireMs < TOUCH_RESOLUTION_MS || read.expireMs >= read.endsAtMs)) {
+    if (read && touchNotDue(read, idleMs, Date.now())) {
       callback?.();
       return;
     }
@@ -230,6 +247,42 @@ export function sessionMiddleware(config: Config, store: PostgresSessionStore): 
     rolling: false,
     cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: config.session.absoluteMs, path: '/' },
   });
+}
+
+/** The session id in a request's signed session cookie (as express-session signs it), or undefined. */
+function signedSessionId(cookieHeader: string | undefined, name: string, secret: string): string | undefined {
+  for (const pair of cookieHeader?.split(';') ?? []) {
+    const separator = pair.indexOf('=');
+    if (separator < 0 || pair.slice(0, separator).trim() !== name) continue;
+    let value: string;
+    try {
+      value = decodeURIComponent(pair.slice(separator + 1).trim());
+    } catch {
+      return undefined;
+    }
+    if (!value.startsWith('s:')) return undefined;
+    const sid = unsign(value.slice(2), secret);
+    return sid === false ? undefined : sid;
+  }
+  return undefined;
+}
+
+/**
+ * Signs in a read (GET or HEAD) whose session this process read in the last few seconds and whose row needs no
+ * touch: the person comes from that read, and the session middleware, passport and the CSRF check are left out
+ * (a read changes no session, and CSRF guards only writes). A busy browser's reads then cost no parsing of the
+ * session, no hashing of it and no listeners on the answer. Anything else, and every /auth path, goes the whole
+ * way: `next('router')` leaves the browser router only for the reads taken here.
+ */
+export function recentSessionReads(config: Config, store: PostgresSessionStore): RequestHandler {
+  return (req, _res, next) => {
+    if ((req.method !== 'GET' && req.method !== 'HEAD') || req.path.startsWith('/auth/')) return next();
+    const sid = signedSessionId(req.headers.cookie, config.session.cookieName, config.session.secret);
+    const person = sid === undefined ? undefined : store.recentPerson(sid);
+    if (!person) return next();
+    req.user = signedInUser(person);
+    next('router');
+  };
 }
 
 /** The cookie options the session cookie was set with, which clearing it must repeat (a __Host- cookie needs Secure). */
