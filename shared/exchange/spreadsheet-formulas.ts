@@ -97,8 +97,9 @@ export function sameFormula(a: FormulaNode, b: FormulaNode): boolean {
   return JSON.stringify(a) === JSON.stringify(b);
 }
 
-const ALLOWANCE_PLACEHOLDER = '__allowance_row_';
-const TOTAL_PLACEHOLDER = { cbe: '__total_cbe', predicted: '__total_predicted' } as const;
+/** Names that references to the mass-budget sheet stand in as while an imported formula is parsed as ours. */
+const ALLOWANCE_STAND_IN = '__allowance_row_';
+const TOTAL_STAND_IN = { cbe: '__total_cbe', predicted: '__total_predicted' } as const;
 
 /** What a formula read back from a workbook says, or why it cannot be read. */
 export type ReadFormula = Parsed<FormulaNode>;
@@ -129,9 +130,9 @@ export function fromSpreadsheetFormula(text: string, keyAtBudgetRow: (row: numbe
   const substituted = !trimmed.includes('!')
     ? trimmed
     : trimmed
-        .replace(BUDGET_REFERENCES.allowance, (_all, row: string) => `${ALLOWANCE_PLACEHOLDER}${row}`)
-        .replace(BUDGET_REFERENCES.cbe, TOTAL_PLACEHOLDER.cbe)
-        .replace(BUDGET_REFERENCES.predicted, TOTAL_PLACEHOLDER.predicted);
+        .replace(BUDGET_REFERENCES.allowance, (_all, row: string) => `${ALLOWANCE_STAND_IN}${row}`)
+        .replace(BUDGET_REFERENCES.cbe, TOTAL_STAND_IN.cbe)
+        .replace(BUDGET_REFERENCES.predicted, TOTAL_STAND_IN.predicted);
   if (/[!$:[\]]/.test(substituted)) {
     return { ok: false, message: 'it refers to cells or other sheets; formulas name parameter keys (the defined names), not cells' };
   }
@@ -172,8 +173,8 @@ export function fromSpreadsheetFormula(text: string, keyAtBudgetRow: (row: numbe
         )
           return restore(first);
         if (node.name === 'SUM' && node.args.length === 1 && first?.kind === 'ref') {
-          if (first.key === TOTAL_PLACEHOLDER.cbe) return { kind: 'call', name: 'TOTAL_CBE', args: [] };
-          if (first.key === TOTAL_PLACEHOLDER.predicted) return { kind: 'call', name: 'TOTAL_PREDICTED', args: [] };
+          if (first.key === TOTAL_STAND_IN.cbe) return { kind: 'call', name: 'TOTAL_CBE', args: [] };
+          if (first.key === TOTAL_STAND_IN.predicted) return { kind: 'call', name: 'TOTAL_PREDICTED', args: [] };
         }
         if (node.name === 'NA' && node.args.length === 0) problem ??= 'it is NA(): the row it read is no longer a mass row';
         return { ...node, args: node.args.map(restore) };
@@ -190,9 +191,9 @@ function predictedOf(node: Extract<FormulaNode, { kind: 'binary' }>, keyAtBudget
   if (node.op !== '*' || left.kind !== 'ref' || right.kind !== 'binary' || right.op !== '+') return undefined;
   const one = right.left;
   const allowance = right.right;
-  if (one.kind !== 'number' || one.value !== 1 || allowance.kind !== 'ref' || !allowance.key.startsWith(ALLOWANCE_PLACEHOLDER))
+  if (one.kind !== 'number' || one.value !== 1 || allowance.kind !== 'ref' || !allowance.key.startsWith(ALLOWANCE_STAND_IN))
     return undefined;
-  const row = Number(allowance.key.slice(ALLOWANCE_PLACEHOLDER.length));
+  const row = Number(allowance.key.slice(ALLOWANCE_STAND_IN.length));
   return keyAtBudgetRow(row) === left.key ? ({ kind: 'call', name: 'PREDICTED', args: [left] } as const) : undefined;
 }
 

@@ -105,7 +105,7 @@ function buildRequest(
     .map((part) => number(part, 'Other percentiles'));
   const requirements =
     settings.accelerationKey !== undefined && settings.accelerationTarget.trim() !== ''
-      ? [{ output: 'characteristic_acceleration', atLeast: settings.accelerationTarget.trim() }]
+      ? [{ output: settings.accelerationKey, atLeast: settings.accelerationTarget.trim() }]
       : [];
   const samples = number(settings.samples, 'Samples');
   const seed = number(settings.seed, 'Seed');

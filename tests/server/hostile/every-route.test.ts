@@ -107,10 +107,8 @@ afterAll(async () => {
  * Routes that take hostile requests (an id in the path or a body): not the ones that end the session, and
  * not the API's own 404. Ids are not known until the demo is read, so any id stands in while choosing.
  */
-const placeholderIds = new Proxy({} as Ids, { get: () => 'id' });
-const targets = routeCases.filter(
-  (route) => !route.endsSession && !route.undocumented && hostileRequests(route, placeholderIds).length > 0,
-);
+const standInIds = new Proxy({} as Ids, { get: () => 'id' });
+const targets = routeCases.filter((route) => !route.endsSession && !route.undocumented && hostileRequests(route, standInIds).length > 0);
 
 /** A 4xx with { error: { code, message } }; `what` names the request in a failure. */
 function expectRefused(response: request.Response, what: string) {
